@@ -1,0 +1,75 @@
+#pragma once
+// ShellModel: the discretised structure every analysis works on, whether generated (hinge zone)
+// or read from a Gmsh mesh. Units: mm, N, MPa, rad.
+//
+// Nodes carry six DOFs in the global frame, in the order of Dof: ux, uy, uz, rx, ry, rz.
+// Elements are four-node shells (ShellQ4) with node indices counter-clockwise about the intended
+// outward normal. Node groups are sorted, duplicate-free node index lists with the cells that
+// defined them (points, lines or quads), so loads can be shared by tributary length or area.
+
+#include <Eigen/Core>
+#include <array>
+#include <map>
+#include <string>
+#include <vector>
+
+namespace rotcap {
+
+enum class Dof : int { ux = 0, uy = 1, uz = 2, rx = 3, ry = 4, rz = 5 };
+constexpr int kDofsPerNode = 6;
+
+/// Parses "ux" .. "rz"; returns false for anything else.
+bool parse_dof(const std::string& name, Dof& dof);
+const char* dof_name(Dof dof);
+
+struct NodeGroup {
+  int dimension = 0;                       ///< 0 points, 1 curves, 2 surfaces
+  std::vector<int> nodes;                  ///< sorted, unique node indices
+  std::vector<std::vector<int>> cells;     ///< the group's cells (1, 2 or 4 node indices each)
+};
+
+struct ShellElement {
+  std::array<int, 4> nodes;
+  double thickness = 0.0;                  ///< [mm], > 0
+  int region = 0;                          ///< index into ShellModel::region_names
+};
+
+/// A support: the listed DOFs of every node of a group are held at zero.
+struct Support {
+  std::string group;
+  std::array<bool, kDofsPerNode> fixed{};  ///< indexed by Dof
+};
+
+/// A load on a group: total force [N] and moment [N mm], global axes, shared over the group's
+/// nodes by tributary weight (equal shares for points, length for curves, area for surfaces).
+struct GroupLoad {
+  std::string group;
+  Eigen::Vector3d force = Eigen::Vector3d::Zero();
+  Eigen::Vector3d moment = Eigen::Vector3d::Zero();
+};
+
+struct ShellModel {
+  std::vector<Eigen::Vector3d> nodes;      ///< initial coordinates [mm]
+  std::vector<ShellElement> elements;
+  std::vector<std::string> region_names;   ///< e.g. "top_flange", "web"; physical surface names
+  std::map<std::string, NodeGroup> groups;
+  std::vector<Support> supports;
+  std::vector<GroupLoad> loads;            ///< the reference load (load factor 1)
+
+  int node_count() const { return static_cast<int>(nodes.size()); }
+  int element_count() const { return static_cast<int>(elements.size()); }
+  int dof_count() const { return kDofsPerNode * node_count(); }
+};
+
+/// Tributary weights of a group's nodes (sum 1), in the order of group.nodes.
+std::vector<double> tributary_weights(const ShellModel& model, const NodeGroup& group);
+
+/// The reference load as a global nodal vector of size dof_count().
+Eigen::VectorXd reference_load_vector(const ShellModel& model);
+
+/// Checks that every element's nodes exist, thicknesses are positive, every node is used by an
+/// element and every support or load names an existing group. Throws InputError (io/input_error.hpp
+/// is not visible here: throws std::invalid_argument with a message naming the item).
+void validate_topology(const ShellModel& model);
+
+}  // namespace rotcap
