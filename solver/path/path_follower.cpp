@@ -1,0 +1,193 @@
+#include "solver/path/path_follower.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <sstream>
+
+namespace rotcap {
+
+namespace {
+const LoadControl kLandingControl;
+
+std::string bad(const char* key, double value, const char* constraint) {
+  std::ostringstream s;
+  s << "analysis." << key << " = " << value << ": expected " << constraint;
+  return s.str();
+}
+}  // namespace
+
+std::string PathOptions::validate() const {
+  if (!(force_tolerance > 0.0)) return bad("force_tolerance", force_tolerance, "> 0");
+  if (!(displacement_tolerance > 0.0)) return bad("displacement_tolerance", displacement_tolerance, "> 0");
+  if (max_iterations < 1) return bad("max_iterations", max_iterations, ">= 1");
+  if (!(first_step > 0.0)) return bad("first_step", first_step, "> 0");
+  if (!(min_step_ratio > 0.0 && min_step_ratio <= 1.0)) return bad("min_step_ratio", min_step_ratio, "in (0, 1]");
+  if (!(max_step_ratio >= 1.0)) return bad("max_step_ratio", max_step_ratio, ">= 1");
+  if (target_iterations < 1) return bad("target_iterations", target_iterations, ">= 1");
+  if (max_steps < 1) return bad("max_steps", max_steps, ">= 1");
+  return {};
+}
+
+const char* to_string(PathStatus status) {
+  switch (status) {
+    case PathStatus::Completed: return "completed";
+    case PathStatus::MaxSteps: return "max_steps";
+    case PathStatus::StepTooSmall: return "no_convergence";
+    case PathStatus::EvaluationFailed: return "evaluation_failed";
+  }
+  return "unknown";
+}
+
+PathFollower::PathFollower(EquilibriumProblem& problem, const StepConstraint& constraint, PathOptions options)
+    : problem_(problem), constraint_(constraint), options_(options) {
+  const int n = problem_.size();
+  for (Eigen::VectorXd* v : {&f_int_, &r_, &du_r_, &du_f_, &du_, &Du_, &u_total_}) v->setZero(n);
+  ref_norm_ = problem_.reference_load().norm();
+  if (!(ref_norm_ > 0.0)) ref_norm_ = 1.0;
+}
+
+bool PathFollower::converged(double r_norm, double du_norm, double Du_norm) const {
+  return r_norm <= options_.force_tolerance * ref_norm_ &&
+         du_norm <= options_.displacement_tolerance * std::max(Du_norm, 1e-300);
+}
+
+bool PathFollower::factorise_at_committed(PathSummary& summary) {
+  if (problem_.evaluate(f_int_, true) == EvaluationStatus::Ok) return true;
+  summary.status = PathStatus::EvaluationFailed;
+  summary.message = "tangent at the converged state failed: " + problem_.last_message();
+  return false;
+}
+
+double PathFollower::landing_size(double size, bool& lands) const {
+  lands = false;
+  const double now = constraint_.controlled_value(u_total_, lambda_);
+  double limit = std::numeric_limits<double>::quiet_NaN();
+  if (dynamic_cast<const LoadControl*>(&constraint_)) limit = options_.max_load_factor;
+  if (dynamic_cast<const DisplacementControl*>(&constraint_)) limit = options_.max_control_value;
+  if (!std::isfinite(limit) || !std::isfinite(now)) return size;
+  const double remaining = limit - now;
+  if (std::abs(remaining) <= size * (1.0 + 1e-12)) {
+    lands = true;
+    return remaining;
+  }
+  return std::copysign(size, remaining);
+}
+
+PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constraint, double size,
+                                                  ConvergedStep& record) {
+  // --- predict: tangent factorised at the committed state (by the caller)
+  const Eigen::VectorXd& f_ref = problem_.reference_load();
+  const double s = std::abs(size);
+  problem_.solve(f_ref, du_f_);
+  double dlambda = constraint.predict(du_f_, size, Du_prev_);
+  if (!std::isfinite(dlambda)) return Attempt::Diverged;
+  Du_ = dlambda * du_f_;
+  double Dlambda = dlambda;
+  problem_.update(Du_);
+  record.residual_norms.clear();
+  const Eigen::VectorXd& w = problem_.arc_length_weights();
+  auto wnorm = [&w](const Eigen::VectorXd& v) { return std::sqrt((v.array().square() * w.array()).sum()); };
+  double du_norm = wnorm(Du_);
+  // --- correct: Newton with the full tangent
+  for (int k = 0; k <= options_.max_iterations; ++k) {
+    if (problem_.evaluate(f_int_, true) != EvaluationStatus::Ok) return Attempt::Diverged;
+    r_ = f_int_ - problem_.fixed_load() - (lambda_ + Dlambda) * f_ref;
+    const double r_norm = r_.norm();
+    if (!std::isfinite(r_norm)) return Attempt::Diverged;
+    record.residual_norms.push_back(r_norm);
+    if (k > 0 && converged(r_norm, du_norm, wnorm(Du_))) {
+      record.iterations = k;
+      record.load_factor_increment = Dlambda;
+      return Attempt::Converged;
+    }
+    if (k == options_.max_iterations) break;
+    problem_.solve(-r_, du_r_);
+    problem_.solve(f_ref, du_f_);
+    double delta_lambda = 0.0;
+    if (!constraint.correct(du_r_, du_f_, Du_, s, delta_lambda)) return Attempt::Diverged;
+    du_ = du_r_ + delta_lambda * du_f_;
+    problem_.update(du_);
+    Du_ += du_;
+    Dlambda += delta_lambda;
+    du_norm = wnorm(du_);
+  }
+  return Attempt::Diverged;
+}
+
+PathSummary PathFollower::run(const Observer& observer, double lambda0) {
+  PathSummary summary;
+  lambda_ = lambda0;
+  u_total_.setZero();
+  Du_prev_.resize(0);
+  if (!factorise_at_committed(summary)) return summary;
+  problem_.solve(problem_.reference_load(), du_f_);
+  const double first = options_.first_step * constraint_.measure_of(du_f_);
+  double size = first;
+  const double floor = options_.min_step_ratio * first;
+  const double ceiling = options_.max_step_ratio * first;
+  int cutbacks = 0;
+  while (summary.steps < options_.max_steps) {
+    bool lands = false;
+    const double signed_size = landing_size(size, lands);
+    ConvergedStep record;
+    record.step = summary.steps + 1;
+    record.step_size = signed_size;
+    Attempt result = attempt_step(constraint_, signed_size, record);
+    // Arc length past max_load_factor: redo the step under load control, landing on the limit.
+    if (result == Attempt::Converged && std::isfinite(options_.max_load_factor) &&
+        !dynamic_cast<const LoadControl*>(&constraint_) &&
+        lambda_ + record.load_factor_increment > options_.max_load_factor) {
+      problem_.revert();
+      if (!factorise_at_committed(summary)) return summary;
+      record.step_size = options_.max_load_factor - lambda_;
+      result = attempt_step(kLandingControl, record.step_size, record);
+      lands = true;
+    }
+    if (result != Attempt::Converged) {
+      // --- cut back: halve and retry from the committed state
+      problem_.revert();
+      ++cutbacks;
+      ++summary.cutbacks;
+      size *= 0.5;
+      if (size < floor) {
+        summary.status = PathStatus::StepTooSmall;
+        std::ostringstream m;
+        m << "no convergence at step " << record.step << " after " << cutbacks
+          << " cut-backs: step size " << size << " < floor " << floor << " (min_step_ratio "
+          << options_.min_step_ratio << " x first step " << first << ")";
+        summary.message = m.str();
+        summary.load_factor = lambda_;
+        return summary;
+      }
+      if (!factorise_at_committed(summary)) return summary;
+      continue;
+    }
+    // --- commit
+    problem_.commit();
+    lambda_ += record.load_factor_increment;
+    u_total_ += Du_;
+    Du_prev_ = Du_;
+    record.load_factor = lambda_;
+    record.cutbacks = cutbacks;
+    cutbacks = 0;
+    ++summary.steps;
+    summary.iterations += record.iterations;
+    summary.load_factor = lambda_;
+    if (!factorise_at_committed(summary)) return summary;
+    record.negative_pivots = problem_.negative_pivots();
+    if (!observer(record) || lands) {
+      summary.status = PathStatus::Completed;
+      summary.message = lands ? "landed on the load or displacement limit" : "stop criterion met";
+      return summary;
+    }
+    // --- adapt the step size to the iteration count
+    const double ratio = std::sqrt(static_cast<double>(options_.target_iterations) /
+                                   std::max(1, record.iterations));
+    size = std::clamp(size * std::clamp(ratio, 0.5, 2.0), floor, ceiling);
+  }
+  summary.status = PathStatus::MaxSteps;
+  summary.message = "reached max_steps = " + std::to_string(options_.max_steps);
+  return summary;
+}
+
+}  // namespace rotcap

@@ -1,0 +1,92 @@
+#pragma once
+// PathFollower: incremental-iterative solution of an EquilibriumProblem along its load path, with a
+// StepConstraint deciding the load factor (load, displacement or arc-length control).
+//
+// Each step: predict (tangent at the committed state, dlambda from the constraint), correct (Newton
+// with the full tangent, two solves per iteration), and on convergence commit and adapt the step size
+// to the iteration count (size *= sqrt(target / iterations), Crisfield 1991 vol. 1 section 9.5, clipped
+// to [1/2, 2]); on divergence revert and halve, down to a floor (min_step_ratio * first size), then stop.
+// Convergence needs BOTH  |r| <= force_tolerance * |f_ref|  and  |du|_W <= displacement_tolerance * |Du|_W
+// (du the last correction, Du the step increment, W the arc-length weights = translations).
+
+#include "solver/path/equilibrium_problem.hpp"
+#include "solver/path/step_constraint.hpp"
+
+#include <functional>
+#include <limits>
+#include <string>
+#include <vector>
+
+namespace rotcap {
+
+struct PathOptions {
+  double force_tolerance = 1.0e-6;          ///< > 0, relative to |f_ref|
+  double displacement_tolerance = 1.0e-6;   ///< > 0, relative to the step increment
+  int max_iterations = 20;                  ///< >= 1 Newton corrections per attempt
+  double first_step = 0.1;                  ///< > 0, load-factor size of the first step
+  double min_step_ratio = 1.0e-4;           ///< in (0, 1]: cut-back floor relative to the first step
+  double max_step_ratio = 4.0;              ///< >= 1: largest step relative to the first step
+  int target_iterations = 5;                ///< >= 1
+  int max_steps = 500;                      ///< >= 1 converged steps
+  double max_load_factor = std::numeric_limits<double>::infinity();   ///< landed on exactly
+  double max_control_value = std::numeric_limits<double>::quiet_NaN();///< displacement control: landed on
+  /// Empty if valid, else a message naming the option, its value and the constraint.
+  std::string validate() const;
+};
+
+enum class PathStatus {
+  Completed,         ///< the observer asked to stop (its criterion met) or a limit was landed on
+  MaxSteps,          ///< max_steps converged steps done
+  StepTooSmall,      ///< no convergence even at the smallest step: state = last converged step
+  EvaluationFailed,  ///< an element or the factorisation failed at the committed state
+};
+const char* to_string(PathStatus status);
+
+struct ConvergedStep {
+  int step = 0;                       ///< 1, 2, ...
+  double load_factor = 0.0;
+  double load_factor_increment = 0.0;
+  int iterations = 0;                 ///< Newton corrections of the accepted attempt
+  int cutbacks = 0;                   ///< failed attempts before it
+  int negative_pivots = 0;            ///< of the tangent at the converged state
+  double step_size = 0.0;             ///< in the constraint's measure
+  std::vector<double> residual_norms; ///< |r| at each evaluation of the accepted attempt
+};
+
+struct PathSummary {
+  PathStatus status = PathStatus::Completed;
+  std::string message;
+  int steps = 0;
+  int iterations = 0;
+  int cutbacks = 0;
+  double load_factor = 0.0;
+};
+
+class PathFollower {
+ public:
+  /// Called after each converged step (state committed, tangent factorised there); return false to stop.
+  using Observer = std::function<bool(const ConvergedStep&)>;
+
+  PathFollower(EquilibriumProblem& problem, const StepConstraint& constraint, PathOptions options);
+  /// Starts from the committed state of the problem at load factor lambda0.
+  PathSummary run(const Observer& observer, double lambda0 = 0.0);
+  /// Total translational displacement accumulated since run() began (free DOFs, additive).
+  const Eigen::VectorXd& total_increment() const { return u_total_; }
+
+ private:
+  enum class Attempt { Converged, Diverged, Failed };
+  bool factorise_at_committed(PathSummary& summary);
+  double landing_size(double size, bool& lands) const;
+  Attempt attempt_step(const StepConstraint& constraint, double size, ConvergedStep& record);
+  bool converged(double r_norm, double du_norm, double Du_norm) const;
+
+  EquilibriumProblem& problem_;
+  const StepConstraint& constraint_;
+  PathOptions options_;
+  double lambda_ = 0.0;
+  double ref_norm_ = 1.0;
+  // Work vectors, sized once.
+  Eigen::VectorXd f_int_, r_, du_r_, du_f_, du_, Du_, Du_prev_, u_total_;
+};
+
+}  // namespace rotcap
