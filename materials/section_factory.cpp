@@ -1,0 +1,20 @@
+#include "materials/section_factory.hpp"
+
+#include "materials/elastic_shell_section.hpp"
+#include "materials/layered_shell_section.hpp"
+
+namespace rotcap {
+
+std::shared_ptr<const ShellSection> make_shell_section(const SteelModel& steel, double thickness,
+                                                       int layers,
+                                                       const SteelCurveOptions& options) {
+  validate(steel, options);
+  if (!has_yield(steel))
+    return std::make_shared<const ElasticShellSection>(steel.E, steel.nu, thickness);
+  LayeredShellSection::Options o;
+  o.layers = layers;
+  return std::make_shared<const LayeredShellSection>(
+      J2PlaneStress(steel.E, steel.nu, hardening_curve(steel, options)), thickness, o);
+}
+
+}  // namespace rotcap
