@@ -1,0 +1,204 @@
+#include "solver/nonlinear/shell_problem.hpp"
+
+#include "elements/corotational/rotation.hpp"
+
+#include <chrono>
+#include <stdexcept>
+
+namespace rotcap {
+
+namespace {
+double seconds_since(std::chrono::steady_clock::time_point t0) {
+  return std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+}
+}  // namespace
+
+ShellProblem::ShellProblem(const ShellModel& model, const SectionAssignment& sections,
+                           const ShellProblemOptions& options)
+    : model_(model), sections_(sections), options_(options), dofs_(model) {
+  validate_topology(model_);
+  sections_.check(model_);
+  element_nodes_ = element_nodes(model_);
+  pattern_ = std::make_unique<SparsePattern>(element_nodes_, dofs_);
+  assembler_ = std::make_unique<Assembler>(*pattern_, element_nodes_);
+  elements_.reserve(model_.elements.size());
+  history_offset_.assign(model_.elements.size() + 1, 0);
+  for (int e = 0; e < model_.element_count(); ++e) {
+    NodalCoordinates X;
+    for (int a = 0; a < 4; ++a) X.col(a) = model_.nodes[model_.elements[e].nodes[a]];
+    try {
+      elements_.emplace_back(X, options_.element);
+    } catch (const std::invalid_argument& err) {
+      throw std::invalid_argument("element " + std::to_string(e) + ": " + err.what());
+    }
+    history_offset_[e + 1] = history_offset_[e] + ShellQ4::kGaussPoints * sections_.of(e).layers();
+  }
+  history_committed_.assign(history_offset_.back(), LayerState{});
+  history_trial_ = history_committed_;
+  const int n = model_.node_count();
+  u_.assign(n, Eigen::Vector3d::Zero());
+  u_committed_ = u_;
+  R_.assign(n, Eigen::Matrix3d::Identity());
+  R_committed_ = R_;
+  f_ref_ = dofs_.gather(reference_load_vector(model_));
+  f_fixed_ = Eigen::VectorXd::Zero(dofs_.free_count());
+  weights_ = Eigen::VectorXd::Zero(dofs_.free_count());
+  for (int q = 0; q < dofs_.free_count(); ++q) weights_[q] = (dofs_.dof_of_equation(q) % kDofsPerNode) < 3 ? 1.0 : 0.0;
+  f_full_ = Eigen::VectorXd::Zero(model_.dof_count());
+  llt_ = std::make_unique<CholmodFactor>(*pattern_, CholmodFactor::Method::SupernodalLLT);
+}
+
+ShellProblem::~ShellProblem() = default;
+
+void ShellProblem::set_reference_load(const Eigen::VectorXd& full) { f_ref_ = dofs_.gather(full); }
+void ShellProblem::set_fixed_load(const Eigen::VectorXd& full) { f_fixed_ = dofs_.gather(full); }
+
+void ShellProblem::gather(int e, NodalCoordinates& x, NodalRotations& R) const {
+  const auto& nodes = model_.elements[e].nodes;
+  for (int a = 0; a < 4; ++a) {
+    x.col(a) = model_.nodes[nodes[a]] + u_[nodes[a]];
+    R[a] = R_[nodes[a]];
+  }
+}
+
+ElementKernel ShellProblem::kernel(std::vector<ShellQ4Resultants>* out) const {
+  return [this, out](int e, Mat24* K, Vec24* f) {
+    NodalCoordinates x;
+    NodalRotations R;
+    gather(e, x, R);
+    const std::size_t begin = history_offset_[e];
+    const std::size_t count = history_offset_[e + 1] - begin;
+    Vec24 fe;
+    const ElementStatus status = elements_[e].compute(
+        x, R, sections_.of(e), std::span<const LayerState>(history_committed_.data() + begin, count),
+        std::span<LayerState>(history_trial_.data() + begin, count), fe, K,
+        out ? &(*out)[e] : nullptr);
+    if (f) *f = fe;
+    return status;
+  };
+}
+
+EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool factorise_tangent) {
+  const auto t0 = std::chrono::steady_clock::now();
+  const AssemblySummary a =
+      assembler_->assemble(kernel(nullptr), factorise_tangent ? &values_ : nullptr, &f_full_, {options_.threads});
+  assembly_seconds_ += seconds_since(t0);
+  if (!a.ok) {
+    message_ = a.message;
+    return EvaluationStatus::ElementFailed;
+  }
+  internal_force = dofs_.gather(f_full_);
+  if (!internal_force.allFinite()) {
+    message_ = "internal force is not finite";
+    return EvaluationStatus::NotFinite;
+  }
+  if (!factorise_tangent) return EvaluationStatus::Ok;
+  const auto t1 = std::chrono::steady_clock::now();
+  FactorStatus s = FactorStatus::NotPositiveDefinite;
+  if (!indefinite_) {
+    s = llt_->factorize(values_);
+    ++factorisations_;
+    active_ = llt_.get();
+    negative_pivots_ = 0;
+  }
+  if (s == FactorStatus::NotPositiveDefinite) {
+    if (!ldlt_) ldlt_ = std::make_unique<CholmodFactor>(*pattern_, CholmodFactor::Method::SimplicialLDLT);
+    s = ldlt_->factorize(values_);
+    ++factorisations_;
+    active_ = ldlt_.get();
+    negative_pivots_ = ldlt_->negative_pivots();
+    indefinite_ = s == FactorStatus::Ok && negative_pivots_ > 0;
+  }
+  factor_seconds_ += seconds_since(t1);
+  if (s != FactorStatus::Ok) {
+    message_ = std::string("factorisation failed: ") + active_->message();
+    return EvaluationStatus::FactorisationFailed;
+  }
+  return EvaluationStatus::Ok;
+}
+
+void ShellProblem::solve(const Eigen::VectorXd& rhs, Eigen::VectorXd& x) {
+  if (!active_) throw std::logic_error("ShellProblem::solve before a factorisation");
+  x.resize(rhs.size());
+  active_->solve(rhs.data(), x.data());
+}
+
+void ShellProblem::update(const Eigen::VectorXd& du) {
+  for (int q = 0; q < dofs_.free_count(); ++q) {
+    const int i = dofs_.dof_of_equation(q);
+    if (i % kDofsPerNode < 3) u_[i / kDofsPerNode][i % kDofsPerNode] += du[q];
+  }
+  // Rotations: compose the incremental spatial rotation of each node (all three components at once).
+  for (int node = 0; node < model_.node_count(); ++node) {
+    Eigen::Vector3d w = Eigen::Vector3d::Zero();
+    bool any = false;
+    for (int k = 0; k < 3; ++k) {
+      const int q = dofs_.equation(node, static_cast<Dof>(3 + k));
+      if (q >= 0) {
+        w[k] = du[q];
+        any = true;
+      }
+    }
+    if (any) R_[node] = rotation_exp(w) * R_[node];
+  }
+}
+
+void ShellProblem::commit() {
+  u_committed_ = u_;
+  R_committed_ = R_;
+  history_committed_ = history_trial_;
+}
+
+void ShellProblem::revert() {
+  u_ = u_committed_;
+  R_ = R_committed_;
+  history_trial_ = history_committed_;
+}
+
+Eigen::VectorXd ShellProblem::displacements() const {
+  Eigen::VectorXd d(model_.dof_count());
+  for (int node = 0; node < model_.node_count(); ++node) {
+    d.segment<3>(kDofsPerNode * node) = u_committed_[node];
+    d.segment<3>(kDofsPerNode * node + 3) = rotation_log(R_committed_[node]);
+  }
+  return d;
+}
+
+double ShellProblem::max_plastic_strain() const {
+  double m = 0.0;
+  for (const LayerState& s : history_committed_) m = std::max(m, s.equivalent_plastic_strain);
+  return m;
+}
+
+std::vector<ElementSnapshot> ShellProblem::snapshot() const {
+  std::vector<ElementSnapshot> out(elements_.size());
+  std::vector<LayerState> scratch(history_committed_.size());
+  for (int e = 0; e < model_.element_count(); ++e) {
+    NodalCoordinates x;
+    NodalRotations R;
+    const auto& nodes = model_.elements[e].nodes;
+    for (int a = 0; a < 4; ++a) {
+      x.col(a) = model_.nodes[nodes[a]] + u_committed_[nodes[a]];
+      R[a] = R_committed_[nodes[a]];
+    }
+    const std::size_t begin = history_offset_[e];
+    const std::size_t count = history_offset_[e + 1] - begin;
+    const std::span<const LayerState> committed(history_committed_.data() + begin, count);
+    const std::span<LayerState> trial(scratch.data() + begin, count);
+    Vec24 f;
+    elements_[e].compute(x, R, sections_.of(e), committed, trial, f, nullptr, &out[e].resultants);
+    out[e].frame = elements_[e].current_frame(x);
+    const int layers = sections_.of(e).layers();
+    for (int gp = 0; gp < ShellQ4::kGaussPoints; ++gp)
+      out[e].surfaces[gp] = sections_.of(e).surfaces(
+          out[e].resultants.g[gp], std::span<const LayerState>(scratch.data() + begin + gp * layers, layers));
+  }
+  return out;
+}
+
+const CholmodFactor& ShellProblem::factor() const {
+  if (!active_) throw std::logic_error("ShellProblem::factor before a factorisation");
+  return *active_;
+}
+
+}  // namespace rotcap

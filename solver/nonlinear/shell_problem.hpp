@@ -1,0 +1,115 @@
+#pragma once
+// ShellProblem: a ShellModel as an EquilibriumProblem for the path-following drivers, with the
+// corotational four-node shell (CorotationalShellQ4), any ShellSection (elastic or layered plastic),
+// the pattern and element colouring built once, and CHOLMOD factorisations reusing their analyses.
+//
+// State: nodal translations u_i (additive) and rotation matrices R_i (multiplicative update
+// R_i <- exp(skew(dw_i)) R_i, never adding angles), plus the section history of every element.
+// The committed state is the last converged step; evaluate() works on the trial state and writes
+// trial history from the committed one (return mapping from the last converged state).
+//
+// Tangent: the symmetric part of the consistent corotational tangent (the Assembler keeps
+// 1/2 (K + K^T)); Felippa & Haugen (2005) show that the skew part vanishes at equilibrium under
+// conservative loads, so Newton keeps its quadratic rate near the solution.
+// Factorisation: supernodal LL^T while the tangent is positive definite; on NotPositiveDefinite
+// the simplicial LDL^T (inertia: negative_pivots()), kept while the tangent stays indefinite and
+// retried as LL^T once it had no negative pivot.
+
+#include "elements/corotational/corotational_shell_q4.hpp"
+#include "model/shell_model.hpp"
+#include "solver/assembler.hpp"
+#include "solver/cholmod_factor.hpp"
+#include "solver/dof_map.hpp"
+#include "solver/path/equilibrium_problem.hpp"
+#include "solver/section_assignment.hpp"
+#include "solver/sparse_pattern.hpp"
+
+#include <memory>
+#include <string>
+#include <vector>
+
+namespace rotcap {
+
+struct ShellProblemOptions {
+  CorotationalShellQ4::Options element;   ///< kinematics (corotational or linear) and core options
+  int threads = 0;                         ///< assembly threads (0: OpenMP default)
+};
+
+/// Per-element output at the trial (= committed after commit()) state.
+struct ElementSnapshot {
+  ShellFrame frame;                        ///< current element frame
+  ShellQ4Resultants resultants;            ///< local frame
+  std::array<SurfaceStresses, 4> surfaces; ///< per Gauss point
+};
+
+class ShellProblem final : public EquilibriumProblem {
+ public:
+  /// model and sections must outlive the problem. f_ref is the model's reference load; the fixed
+  /// load starts at zero (set_fixed_load).
+  ShellProblem(const ShellModel& model, const SectionAssignment& sections,
+               const ShellProblemOptions& options = {});
+  ~ShellProblem() override;
+
+  int size() const override { return dofs_.free_count(); }
+  const Eigen::VectorXd& reference_load() const override { return f_ref_; }
+  const Eigen::VectorXd& fixed_load() const override { return f_fixed_; }
+  const Eigen::VectorXd& arc_length_weights() const override { return weights_; }
+  EvaluationStatus evaluate(Eigen::VectorXd& internal_force, bool factorise_tangent) override;
+  void solve(const Eigen::VectorXd& rhs, Eigen::VectorXd& x) override;
+  int negative_pivots() const override { return negative_pivots_; }
+  void update(const Eigen::VectorXd& du) override;
+  void commit() override;
+  void revert() override;
+  std::string last_message() const override { return message_; }
+
+  /// Full-size (6 per node) load vectors replace the reference / fixed load (free entries used).
+  void set_reference_load(const Eigen::VectorXd& full);
+  void set_fixed_load(const Eigen::VectorXd& full);
+
+  const DofMap& dofs() const { return dofs_; }
+  /// Committed nodal displacements, full vector: translations, and rotations as rotation vectors
+  /// log(R_i) (for output; the state itself keeps the matrices).
+  Eigen::VectorXd displacements() const;
+  /// Committed internal forces at every DOF (reactions at held DOFs), full vector; valid after an
+  /// evaluate() at the committed state.
+  const Eigen::VectorXd& full_internal_force() const { return f_full_; }
+  /// Largest equivalent plastic strain over all committed layer points.
+  double max_plastic_strain() const;
+  /// Snapshot of every element at the committed state (evaluates the elements once).
+  std::vector<ElementSnapshot> snapshot() const;
+  const CholmodFactor& factor() const;
+  /// Numeric factorisations and their total wall time, for the solver statistics.
+  int factorisations() const { return factorisations_; }
+  double factorisation_seconds() const { return factor_seconds_; }
+  double assembly_seconds() const { return assembly_seconds_; }
+
+ private:
+  ElementKernel kernel(std::vector<ShellQ4Resultants>* out) const;
+  void gather(int e, NodalCoordinates& x, NodalRotations& R) const;
+
+  const ShellModel& model_;
+  const SectionAssignment& sections_;
+  ShellProblemOptions options_;
+  DofMap dofs_;
+  std::vector<ElementNodes> element_nodes_;
+  std::unique_ptr<SparsePattern> pattern_;
+  std::unique_ptr<Assembler> assembler_;
+  std::vector<CorotationalShellQ4> elements_;
+  std::unique_ptr<CholmodFactor> llt_, ldlt_;
+  CholmodFactor* active_ = nullptr;
+  bool indefinite_ = false;
+  int negative_pivots_ = 0;
+  std::string message_;
+  // State: trial and committed.
+  std::vector<Eigen::Vector3d> u_, u_committed_;
+  std::vector<Eigen::Matrix3d> R_, R_committed_;
+  std::vector<std::size_t> history_offset_;
+  std::vector<LayerState> history_committed_;
+  mutable std::vector<LayerState> history_trial_;
+  Eigen::VectorXd f_ref_, f_fixed_, weights_, f_full_;
+  std::vector<double> values_;
+  int factorisations_ = 0;
+  double factor_seconds_ = 0.0, assembly_seconds_ = 0.0;
+};
+
+}  // namespace rotcap
