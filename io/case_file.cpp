@@ -1,0 +1,416 @@
+#include "io/case_file.hpp"
+
+#include "io/amplitude.hpp"
+#include "io/case_file_parts.hpp"
+#include "io/input_text.hpp"
+#include "model/i_section.hpp"
+#include "model/section_table.hpp"
+
+#include <fstream>
+#include <stdexcept>
+#include <sstream>
+
+namespace rotcap {
+
+namespace detail {
+
+GroupDof read_group_dof(const toml::node& node, const std::filesystem::path& file,
+                        const std::string& key_path) {
+  TableReader r(file, &table_value(node, file, key_path), key_path, node_line(node));
+  GroupDof g;
+  g.group = r.required_string("group", "the name of a physical group of the mesh");
+  g.line = r.line_of("group");
+  static const std::string kDofs[] = {"ux", "uy", "uz", "rx", "ry", "rz"};
+  const std::string dof = r.required_string("dof", "one of " + quote_list(kDofs));
+  if (!parse_dof(dof, g.dof))
+    r.fail("dof", quote(dof), "one of " + quote_list(kDofs) + did_you_mean(dof, kDofs));
+  r.finish();
+  return g;
+}
+
+}  // namespace detail
+
+namespace {
+
+using detail::read_choice;
+using detail::TableReader;
+
+/// model/i_section.hpp validate() reports "section.key = value mm: expected bound"; that becomes
+/// an InputError at the key's line (the whole text as found when the form differs).
+[[noreturn]] void rethrow_section_error(const TableReader& r, const std::string& message) {
+  const std::size_t eq = message.find(" = "), colon = message.find(": expected ");
+  const std::string prefix = "section.";
+  if (message.rfind(prefix, 0) != 0 || eq == std::string::npos || colon == std::string::npos || colon < eq)
+    throw InputError(r.file(), r.line(), "section", message, "a section the plate model can represent");
+  const std::string key = message.substr(prefix.size(), eq - prefix.size());
+  r.fail(key, message.substr(eq + 3, colon - eq - 3), message.substr(colon + 11));
+}
+
+void read_section(TableReader r, CaseInput& c) {
+  SectionInput& s = c.section;
+  static const char* kPlates[] = {"depth", "flange_width", "flange_thickness", "web_thickness",
+                                  "root_radius", "weld_throat"};
+  if (const std::optional<std::string> name = r.optional_string("designation")) {
+    for (const char* key : kPlates)
+      r.forbid(key, "either designation or the plate dimensions, not both (the table gives them)");
+    const std::optional<SectionTableRow> row = find_section_row(*name);
+    if (!row) {
+      const std::vector<std::string> names = list_sections();
+      r.fail("designation", quote(*name),
+             "a section of the built-in table (IPE 80-600, HEA and HEB 100-1000, EN 10365)" +
+                 did_you_mean(*name, names));
+    }
+    s.designation = row->designation;
+    s.depth = row->h;
+    s.flange_width = row->b;
+    s.flange_thickness = row->tf;
+    s.web_thickness = row->tw;
+    s.root_radius = row->r;
+  } else {
+    s.depth = r.required_number("depth", "the overall depth h [mm] (or designation = \"IPE 300\")");
+    s.flange_width = r.required_number("flange_width", "the flange width b [mm]");
+    s.flange_thickness = r.required_number("flange_thickness", "the flange thickness tf [mm]");
+    s.web_thickness = r.required_number("web_thickness", "the web thickness tw [mm]");
+    s.root_radius = r.number("root_radius", 0.0);
+    s.weld_throat = r.number("weld_throat", 0.0);
+    r.check("depth", s.depth, s.depth > 0.0, "depth > 0");
+    r.check("flange_width", s.flange_width, s.flange_width > 0.0, "flange_width > 0");
+    r.check("flange_thickness", s.flange_thickness, s.flange_thickness > 0.0, "flange_thickness > 0");
+    r.check("web_thickness", s.web_thickness, s.web_thickness > 0.0, "web_thickness > 0");
+    r.check("flange_thickness", s.flange_thickness, 2.0 * s.flange_thickness < s.depth,
+            "2 flange_thickness < depth (" + format_number(s.depth) + ")");
+    r.check("web_thickness", s.web_thickness, s.web_thickness < s.flange_width,
+            "web_thickness < flange_width (" + format_number(s.flange_width) + ")");
+    // The remaining rules (fillets and welds leave flat plate parts) are the model's own.
+    ISection section;
+    section.h = s.depth;
+    section.b = s.flange_width;
+    section.tf = s.flange_thickness;
+    section.tw = s.web_thickness;
+    section.r = s.root_radius;
+    section.weld_throat = s.weld_throat;
+    try {
+      validate(section);
+    } catch (const std::invalid_argument& e) {
+      rethrow_section_error(r, e.what());
+    }
+  }
+  r.finish();
+}
+
+void read_steel_table(TableReader& r, SteelInput& s) {
+  const toml::array* rows = r.optional_array("table");
+  if (rows == nullptr)
+    r.fail("table", "no value",
+           "a table of [true stress, equivalent plastic strain] rows for curve = \"table\"");
+  if (rows->empty()) r.fail("table", "an empty array", "at least one [stress, strain] row");
+  for (std::size_t i = 0; i < rows->size(); ++i) {
+    const std::string key = r.key_path("table") + "[" + std::to_string(i) + "]";
+    const toml::node& row = *rows->get(i);
+    const toml::array* pair = row.as_array();
+    if (pair == nullptr || pair->size() != 2)
+      throw InputError(r.file(), detail::node_line(row), key, detail::describe_node(row) +
+                       (pair ? " of " + std::to_string(pair->size()) + " values" : ""),
+                       "a row [true stress MPa, equivalent plastic strain]");
+    const double stress = detail::number_value(*pair->get(0), r.file(), key + "[0]");
+    const double strain = detail::number_value(*pair->get(1), r.file(), key + "[1]");
+    const auto fail = [&](const std::string& found, const std::string& expected) {
+      throw InputError(r.file(), detail::node_line(row), key, found, expected);
+    };
+    if (!(stress > 0.0)) fail("stress " + format_number(stress), "stress > 0");
+    if (i == 0 && strain != 0.0)
+      fail("plastic strain " + format_number(strain), "the first row at plastic strain 0");
+    if (i > 0 && !(strain > s.table.back()[1]))
+      fail("plastic strain " + format_number(strain) + " after " +
+               format_number(s.table.back()[1]),
+           "strictly increasing plastic strains");
+    if (i > 0 && stress < s.table.back()[0])
+      fail("stress " + format_number(stress) + " after " + format_number(s.table.back()[0]),
+           "non-decreasing stresses (no softening)");
+    s.table.push_back({stress, strain});
+  }
+}
+
+void read_steel(TableReader r, CaseInput& c) {
+  SteelInput& s = c.steel;
+  s.E = r.number("E", s.E);
+  r.check("E", s.E, s.E > 0.0, "E > 0");
+  s.nu = r.number("nu", s.nu);
+  r.check("nu", s.nu, s.nu >= 0.0 && s.nu < 0.5, "0 <= nu < 0.5");
+  s.curve = read_choice(r, "curve", s.curve);
+  const std::string curve = quote(enum_name(s.curve));
+  s.fy = r.optional_number("fy");
+  s.fu = r.optional_number("fu");
+  const bool needs_fy = c.kind == ModelKind::generated || s.curve == SteelCurve::elastic_plastic ||
+                        s.curve == SteelCurve::bilinear || s.curve == SteelCurve::quadlinear;
+  if (needs_fy && !s.fy)
+    r.fail("fy", "no value",
+           c.kind == ModelKind::generated
+               ? "the yield strength fy [MPa] (it defines Mp)"
+               : "the yield strength fy [MPa] for curve = " + curve +
+                     (r.has("curve") ? "" : " (the default; curve = \"elastic\" needs no fy)"));
+  if (s.fy) r.check("fy", *s.fy, *s.fy > 0.0, "fy > 0");
+  const bool needs_fu = s.curve == SteelCurve::bilinear || s.curve == SteelCurve::quadlinear;
+  if (needs_fu && !s.fu) r.fail("fu", "no value", "the tensile strength fu [MPa] for curve = " + curve);
+  if (s.fu) r.check("fu", *s.fu, *s.fu > 0.0, "fu > 0");
+  if (s.fu && s.fy) {
+    if (s.curve == SteelCurve::bilinear)
+      r.check("fu", *s.fu, *s.fu > *s.fy, "fu > fy (" + format_number(*s.fy) + ") for curve = \"bilinear\"");
+    else
+      r.check("fu", *s.fu, *s.fu >= *s.fy, "fu >= fy (" + format_number(*s.fy) + ")");
+  }
+  if (s.curve == SteelCurve::bilinear) {
+    s.hardening_modulus = r.required_number("hardening_modulus",
+                                            "the hardening modulus E_h [MPa] for curve = \"bilinear\"");
+    r.check("hardening_modulus", *s.hardening_modulus,
+            *s.hardening_modulus > 0.0 && *s.hardening_modulus < s.E,
+            "0 < hardening_modulus < E (" + format_number(s.E) + ")");
+  } else {
+    r.forbid("hardening_modulus", "no hardening_modulus with curve = " + curve + " (bilinear only)");
+  }
+  if (s.curve == SteelCurve::table)
+    read_steel_table(r, s);
+  else
+    r.forbid("table", "no table with curve = " + curve + " (curve = \"table\" only)");
+  r.finish();
+}
+
+void read_stiffeners(TableReader& r, MemberInput& m) {
+  const toml::node* n = r.node("stiffeners");
+  if (n == nullptr) return;
+  if (const toml::array* xs = n->as_array()) {
+    m.stiffeners = StiffenerLayout::positions;
+    for (std::size_t i = 0; i < xs->size(); ++i) {
+      const std::string key = r.key_path("stiffeners") + "[" + std::to_string(i) + "]";
+      const double x = detail::number_value(*xs->get(i), r.file(), key);
+      const int line = detail::node_line(*xs->get(i));
+      if (!(x >= 0.0 && x <= m.length))
+        throw InputError(r.file(), line, key, format_number(x),
+                         "0 <= x <= length (" + format_number(m.length) + ")");
+      if (!m.stiffener_positions.empty() && !(x > m.stiffener_positions.back()))
+        throw InputError(r.file(), line, key, format_number(x),
+                         "strictly increasing positions (after " +
+                             format_number(m.stiffener_positions.back()) + ")");
+      m.stiffener_positions.push_back(x);
+    }
+    return;
+  }
+  static const std::string kLayouts[] = {"supports_and_loads", "none"};
+  if (n->as_string() == nullptr)
+    r.fail("stiffeners", detail::describe_node(*n),
+           "\"supports_and_loads\", \"none\" or an array of positions [x, ...] in mm");
+  m.stiffeners = static_cast<StiffenerLayout>(r.choice("stiffeners", kLayouts, 0));
+}
+
+void read_member(TableReader r, CaseInput& c) {
+  MemberInput& m = c.member;
+  if (!r.has("setup"))
+    r.fail("setup", "no value", "one of " + quote_list(enum_names<Setup>()));
+  m.setup = read_choice(r, "setup", m.setup);
+  m.length = r.required_number("length", "the member length [mm] (cantilever: support to load; beams: span)");
+  r.check("length", m.length, m.length > 0.0, "length > 0");
+  if (m.setup == Setup::four_point) {
+    m.load_spacing = r.required_number("load_spacing",
+                                       "the distance between the two loads [mm] for setup = \"four_point\"");
+    r.check("load_spacing", *m.load_spacing, *m.load_spacing > 0.0 && *m.load_spacing < m.length,
+            "0 < load_spacing < length (" + format_number(m.length) + ")");
+  } else {
+    r.forbid("load_spacing", "no load_spacing with setup = " + quote(enum_name(m.setup)) +
+                                 " (four_point only)");
+  }
+  m.axial_load_ratio = r.number("axial_load_ratio", m.axial_load_ratio);
+  r.check("axial_load_ratio", m.axial_load_ratio, m.axial_load_ratio >= 0.0 && m.axial_load_ratio < 1.0,
+          "0 <= axial_load_ratio < 1 (N / N_pl, compression positive)");
+  const bool beam = m.setup == Setup::three_point || m.setup == Setup::four_point;
+  r.check("axial_load_ratio", m.axial_load_ratio, !beam || m.axial_load_ratio == 0.0,
+          "0 for setup = " + quote(enum_name(m.setup)) +
+              " (an axial force needs the rigid end sections of cantilever or uniform_moment)");
+  read_stiffeners(r, m);
+  if (m.stiffeners == StiffenerLayout::none) {
+    r.forbid("stiffener_thickness", "no stiffener_thickness with stiffeners = \"none\"");
+  } else {
+    m.stiffener_thickness = r.optional_number("stiffener_thickness");
+    if (m.stiffener_thickness)
+      r.check("stiffener_thickness", *m.stiffener_thickness, *m.stiffener_thickness > 0.0,
+              "stiffener_thickness > 0");
+  }
+  r.finish();
+}
+
+void read_restraints(TableReader r, CaseInput& c) {
+  if (const toml::array* list = r.optional_array("lateral")) {
+    for (std::size_t i = 0; i < list->size(); ++i) {
+      const std::string key = r.key_path("lateral") + "[" + std::to_string(i) + "]";
+      const toml::node& item = *list->get(i);
+      TableReader e(r.file(), &detail::table_value(item, r.file(), key), key, detail::node_line(item));
+      LateralRestraint lr;
+      lr.x = e.required_number("x", "the restraint position x [mm] along the member");
+      e.check("x", lr.x, lr.x >= 0.0 && lr.x <= c.member.length,
+              "0 <= x <= length (" + format_number(c.member.length) + ")");
+      lr.flange = read_choice(e, "flange", lr.flange);
+      e.finish();
+      c.lateral_restraints.push_back(lr);
+    }
+  }
+  r.finish();
+}
+
+Amplitude read_amplitude(TableReader& r, std::string_view key, const Amplitude& fallback,
+                         ModelKind kind) {
+  const toml::node* n = r.node(key);
+  if (n == nullptr) return fallback;
+  const std::string general_note =
+      kind == ModelKind::general ? " (general models: a number in mm)" : "";
+  if (n->is_number()) {
+    const double mm = detail::number_value(*n, r.file(), r.key_path(key));
+    r.check(key, mm, mm >= 0.0, std::string(key) + " >= 0 [mm]");
+    return amplitude_mm(mm);
+  }
+  if (const toml::value<std::string>* s = n->as_string()) {
+    std::optional<Amplitude> a = parse_amplitude(s->get());
+    if (!a)
+      r.fail(key, quote(s->get()),
+             "a number in mm or a ratio \"S/n\" with S one of " + quote_list(amplitude_bases()) +
+                 " and n > 0, e.g. \"b/200\"" + general_note);
+    if (kind == ModelKind::general)
+      r.fail(key, quote(s->get()),
+             "a number in mm (ratios of the section's plates exist only for generated models)");
+    return *a;
+  }
+  r.fail(key, detail::describe_node(*n), "a number in mm or a ratio string such as \"b/200\"");
+}
+
+void read_imperfection(TableReader r, CaseInput& c) {
+  ImperfectionInput& im = c.imperfection;
+  if (c.kind == ModelKind::general) {
+    im.local = LocalImperfection::none;
+    im.local_amplitude = amplitude_mm(0.0);
+    im.global_amplitude = amplitude_mm(0.0);
+  }
+  im.local = read_choice(r, "local", im.local);
+  if (c.kind == ModelKind::general && im.local == LocalImperfection::half_sine)
+    r.fail("local", quote("half_sine"),
+           "\"none\" or \"buckling_mode\" (half_sine needs the generated section's plates)");
+  if (im.local == LocalImperfection::none)
+    r.forbid("local_amplitude", "no local_amplitude with local = \"none\"");
+  else
+    im.local_amplitude = read_amplitude(r, "local_amplitude", im.local_amplitude, c.kind);
+  im.global_amplitude = read_amplitude(r, "global_amplitude", im.global_amplitude, c.kind);
+  r.finish();
+}
+
+void read_mesh(TableReader r, CaseInput& c) {
+  MeshInput& m = c.mesh;
+  if (c.kind == ModelKind::generated) {
+    m.flange_elements = r.integer("flange_elements", m.flange_elements);
+    r.check("flange_elements", m.flange_elements, m.flange_elements >= 4 && m.flange_elements % 2 == 0,
+            "an even flange_elements >= 4 (the web meets the flange at its middle node)");
+    m.web_elements = r.integer("web_elements", m.web_elements);
+    r.check("web_elements", m.web_elements, m.web_elements >= 4, "web_elements >= 4");
+    m.aspect = r.number("aspect", m.aspect);
+    r.check("aspect", m.aspect, m.aspect > 0.0, "aspect > 0");
+  } else {
+    for (const char* key : {"flange_elements", "web_elements", "aspect"})
+      r.forbid(key, "only mesh.layers in a general model (the mesh comes from [model] mesh)");
+  }
+  m.layers = r.integer("layers", m.layers);
+  r.check("layers", m.layers, m.layers >= 3 && m.layers <= 15 && m.layers % 2 == 1,
+          "an odd number of layers, 3 <= layers <= 15");
+  r.finish();
+}
+
+void read_buckling(TableReader r, CaseInput& c) {
+  c.buckling.modes = r.integer("modes", c.buckling.modes);
+  r.check("modes", c.buckling.modes, c.buckling.modes >= 1 && c.buckling.modes <= 50,
+          "1 <= modes <= 50");
+  r.finish();
+}
+
+void read_output(TableReader r, CaseInput& c) {
+  c.output.fields_every = r.integer("fields_every", c.output.fields_every);
+  r.check("fields_every", c.output.fields_every, c.output.fields_every >= 1, "fields_every >= 1");
+  r.finish();
+}
+
+ModelKind decide_kind(TableReader& root) {
+  const bool model = root.has("model");
+  const bool section = root.has("section");
+  const bool member = root.has("member");
+  const std::string either =
+      "either [section] + [member] (generated hinge zone) or [model] (a general mesh)";
+  if (model && (section || member))
+    root.fail("model", std::string("[model] together with ") + (section ? "[section]" : "[member]"),
+              either + ", not both");
+  if (model) return ModelKind::general;
+  if (!section && !member) root.fail("", "neither [section] + [member] nor [model]", either);
+  if (!section)
+    root.fail("section", "[member] without [section]",
+              "a [section] table (depth, flange_width, flange_thickness, web_thickness)");
+  if (!member)
+    root.fail("member", "[section] without [member]", "a [member] table (setup, length)");
+  return ModelKind::generated;
+}
+
+void read_root(TableReader& root, CaseInput& c) {
+  c.title = root.string("title", "");
+  c.kind = decide_kind(root);
+  const std::string generated_only = "it only in generated models ([section] + [member])";
+  if (c.kind == ModelKind::generated) {
+    read_section(root.child("section"), c);
+    read_member(root.child("member"), c);
+    read_restraints(root.child("restraints"), c);
+    TableReader rs = root.child("residual_stress");
+    c.residual_stress = read_choice(rs, "pattern", c.residual_stress);
+    rs.finish();
+    for (const char* key : {"thickness", "support", "load"})
+      root.forbid(key, std::string("[[") + key + "]] only in general models ([model])");
+  } else {
+    for (const char* key : {"restraints", "residual_stress"}) root.forbid(key, generated_only);
+    detail::read_general_model(root, c);
+  }
+  read_steel(root.child("steel"), c);
+  read_imperfection(root.child("imperfection"), c);
+  read_mesh(root.child("mesh"), c);
+  TableReader analysis = root.child("analysis");
+  detail::read_analysis(analysis, c);
+  read_buckling(root.child("buckling"), c);
+  read_output(root.child("output"), c);
+  root.finish();
+}
+
+CaseInput parse_table(const toml::table& table, const std::filesystem::path& file) {
+  CaseInput c;
+  c.file = file;
+  TableReader root(file, &table, "", 1);
+  read_root(root, c);
+  return c;
+}
+
+}  // namespace
+
+CaseInput parse_case_text(std::string_view text, const std::filesystem::path& file) {
+  toml::table table;
+  try {
+    table = toml::parse(text, file.string());
+  } catch (const toml::parse_error& e) {
+    throw InputError(file, static_cast<int>(e.source().begin.line), "",
+                     "a TOML syntax error: " + std::string(e.description()),
+                     "valid TOML (https://toml.io/en/v1.0.0)");
+  }
+  return parse_table(table, file);
+}
+
+CaseInput read_case_file(const std::filesystem::path& path) {
+  std::error_code ec;
+  if (!std::filesystem::is_regular_file(path, ec))
+    throw InputError(path, 0, "",
+                     std::filesystem::exists(path, ec) ? "a folder or special file" : "no such file",
+                     "a case file (TOML)");
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  if (!in && !in.eof()) throw InputError(path, 0, "", "a file that cannot be read", "a readable case file");
+  return parse_case_text(text.str(), path);
+}
+
+}  // namespace rotcap

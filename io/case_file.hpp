@@ -1,0 +1,130 @@
+#pragma once
+// Case files: TOML -> CaseInput (io/case_input.hpp). This comment is the case-file reference;
+// the README's user documentation follows it. Units: mm, N, MPa, rad.
+//
+// Strict reading: an unknown key or table anywhere is an error naming it (and the nearest valid
+// key); a wrong type names the type found and expected; a value outside its limits names the
+// limit; a key that does not apply to the chosen option (e.g. steel.table with curve =
+// "bilinear", analysis.monitor in a generated model) is an error rather than silently ignored.
+// All errors are InputError ("file:line: key: found ...; expected ...").
+// A case is either generated ([section] + [member]) or general ([model] with a Gmsh mesh), never
+// both. Integers are accepted where numbers are expected.
+//
+// key                         type / values                       default        limits
+// --------------------------- ----------------------------------- -------------- --------------------
+// title                       string                              ""
+// [section] (generated)       either designation = "IPE 450" (the built-in table of
+//                             model/section_table.hpp: IPE, HEA, HEB; any spacing or case), or
+//                             depth, flange_width, flange_thickness, web_thickness: numbers, all
+//                             required, > 0; 2 flange_thickness < depth; web_thickness <
+//                             flange_width; optional root_radius (rolled) or weld_throat
+//                             (welded) [mm], default 0, used only for the handbook properties
+//                             and checked by model/i_section.hpp validate()
+// [steel] E                   number                              210000         E > 0
+//         nu                  number                              0.3            0 <= nu < 0.5
+//         curve               "elastic" | "elastic_plastic" | "bilinear" | "quadlinear" | "table"
+//                                                                 "quadlinear"
+//         fy                  number; required for generated models and every curve but elastic
+//                                                                 -              fy > 0
+//         fu                  number; required for bilinear and quadlinear
+//                                                                 -              fu >= fy (bilinear: >)
+//         hardening_modulus   number; bilinear only, required     -              0 < E_h < E
+//         table               [[true stress, eq. plastic strain], ...]; table only, required;
+//                             stresses > 0 and non-decreasing, strains start at 0, strictly
+//                             increasing
+// [member] (generated)
+//         setup               "cantilever" | "three_point" | "four_point" | "uniform_moment"
+//                                                                 required
+//         length              number [mm]                         required       > 0
+//         load_spacing        number [mm]; four_point only, required          0 < a < length
+//         axial_load_ratio    number, N/N_pl, compression > 0     0              0 <= n < 1;
+//                                                                                0 for three_point
+//                                                                                and four_point
+//         stiffeners          "supports_and_loads" | "none" | [x, ...] [mm]
+//                                                                 "supports_and_loads"
+//                                                                                0 <= x <= length,
+//                                                                                strictly increasing
+//         stiffener_thickness number [mm] (not with "none")       tf             > 0
+// [restraints] (generated)
+//         lateral             [{ x = number, flange = "both" | "top" | "bottom" }, ...]
+//                                                                 []             0 <= x <= length;
+//                                                                                flange default "both"
+// [imperfection]
+//         local               "none" | "buckling_mode" | "half_sine" (general: no half_sine)
+//                                                                 "buckling_mode" (general: "none")
+//         local_amplitude     number [mm] or "S/n" with S = b (width of the buckled plate),
+//                             h (section depth) or L (member length); general models: number only;
+//                             not with local = "none"             "b/200"        >= 0; n > 0
+//         global_amplitude    as local_amplitude                  "L/1000" (general: 0)
+// [residual_stress] (generated)
+//         pattern             "none" | "hot_rolled" | "welded"    "none"
+// [mesh]  flange_elements     integer (generated only)            8              even, >= 4
+//         web_elements        integer (generated only)            10             >= 4
+//         aspect              number (generated only)             1.0            > 0
+//         layers              integer                             5              odd, 3..15
+// [analysis]
+//         control             "linear" | "load" | "displacement" | "arc_length"
+//                                                                 "arc_length" (general: "linear")
+//         force_tolerance     number: |residual| <= tol * |reference load|
+//                                                                 1e-6           0 < tol < 1
+//         displacement_tolerance  number: |correction| <= tol * |step increment|
+//                                                                 1e-6           0 < tol < 1
+//         max_iterations      integer, Newton iterations per step 20             >= 1
+//         first_step          number: load-factor size of the first step (arc length: the first
+//                             arc expressed as a load-factor step)
+//                                                                 0.1            > 0
+//         min_step_ratio      number: cut-back floor / first_step 1e-4           0 < r <= 1
+//         target_iterations   integer: step-size adaptation target
+//                                                                 5              1 <= t <= max_iterations
+//         arc_length_form     "cylindrical" | "normal_plane"      "cylindrical"
+//         max_rotation        number [rad] (generated only): stop at this hinge rotation
+//                                                                 0.15           > 0
+//         stop_below          number: stop on the falling branch when M (general: the load
+//                             factor) < stop_below * maximum      0.75           0 < s < 1
+//         max_steps           integer                             500            >= 1
+//         max_load_factor     number (general only): stop landing on this load factor
+//                                                                 control "load": 1; else none
+//                                                                                > 0
+//         control_dof         { group = string, dof = "ux".."rz" } (general only); required for
+//                             control = "displacement"; comes with max_displacement
+//         max_displacement    number [mm or rad] (general only): run until control_dof reaches it
+//                                                                 -              != 0
+//         monitor             [{ group, dof }, ...] (general only): curve.csv column "dof@group"
+//                             (group mean)                        []
+// [buckling]
+//         modes               integer: lowest load factors to find (`rotcap buckle -n`
+//                             overrides); no shift is needed      4              1 <= n <= 50
+// [output]
+//         fields_every        integer: VTK fields every N converged steps (and at peak and end)
+//                                                                 5              >= 1
+// [model] (general)
+//         mesh                string: Gmsh MSH 4.1 ASCII file, relative to the case file's folder
+//                                                                 required       the file exists
+//         thickness           number [mm]: elements no [[thickness]] covers
+//                                                                 -              > 0
+// [[thickness]] (general)  group = physical surface (string), value = number [mm] > 0; both required
+// [[support]]   (general)  group = physical group, fix = ["ux", ..., "rz"] (non-empty); both
+//                          required; at least one [[support]]
+// [[load]]      (general)  group = physical group (required); force = [Fx, Fy, Fz] [N],
+//                          moment = [Mx, My, Mz] [N mm], totals shared by tributary length or area;
+//                          at least one of force / moment; at least one [[load]]
+// Array positions in key paths are 0-based: support[0] is the first [[support]].
+
+#include "io/case_input.hpp"
+#include "io/input_error.hpp"
+
+#include <filesystem>
+#include <string_view>
+
+namespace rotcap {
+
+/// Reads and validates a case file. Throws InputError on any bad input (missing or unreadable
+/// file, TOML syntax, schema). [model] mesh is resolved against the case file's folder and must
+/// exist; its contents (and the group names) are checked by build_general_model.
+CaseInput read_case_file(const std::filesystem::path& path);
+
+/// The same for TOML text in memory (bundled cases, tests); file names the source in messages
+/// and its folder is the base of relative mesh paths.
+CaseInput parse_case_text(std::string_view text, const std::filesystem::path& file);
+
+}  // namespace rotcap

@@ -1,0 +1,88 @@
+// [analysis]: path-following control, convergence tests, stopping criteria, monitors.
+// Limits are stated next to each key in io/case_file.hpp.
+#include "io/case_file_parts.hpp"
+#include "io/input_text.hpp"
+
+namespace rotcap::detail {
+
+namespace {
+
+void read_tolerances(TableReader& r, AnalysisInput& a) {
+  a.force_tolerance = r.number("force_tolerance", a.force_tolerance);
+  r.check("force_tolerance", a.force_tolerance, a.force_tolerance > 0.0 && a.force_tolerance < 1.0,
+          "0 < force_tolerance < 1 (relative to the reference load norm)");
+  a.displacement_tolerance = r.number("displacement_tolerance", a.displacement_tolerance);
+  r.check("displacement_tolerance", a.displacement_tolerance,
+          a.displacement_tolerance > 0.0 && a.displacement_tolerance < 1.0,
+          "0 < displacement_tolerance < 1 (relative to the step's increment norm)");
+  a.max_iterations = r.integer("max_iterations", a.max_iterations);
+  r.check("max_iterations", a.max_iterations, a.max_iterations >= 1, "max_iterations >= 1");
+}
+
+void read_stepping(TableReader& r, AnalysisInput& a) {
+  a.first_step = r.number("first_step", a.first_step);
+  r.check("first_step", a.first_step, a.first_step > 0.0, "first_step > 0");
+  a.min_step_ratio = r.number("min_step_ratio", a.min_step_ratio);
+  r.check("min_step_ratio", a.min_step_ratio, a.min_step_ratio > 0.0 && a.min_step_ratio <= 1.0,
+          "0 < min_step_ratio <= 1");
+  a.target_iterations = r.integer("target_iterations", a.target_iterations);
+  r.check("target_iterations", a.target_iterations,
+          a.target_iterations >= 1 && a.target_iterations <= a.max_iterations,
+          "1 <= target_iterations <= max_iterations (" + std::to_string(a.max_iterations) + ")");
+  a.arc_length_form = read_choice(r, "arc_length_form", a.arc_length_form);
+  a.max_steps = r.integer("max_steps", a.max_steps);
+  r.check("max_steps", a.max_steps, a.max_steps >= 1, "max_steps >= 1");
+  a.stop_below = r.number("stop_below", a.stop_below);
+  r.check("stop_below", a.stop_below, a.stop_below > 0.0 && a.stop_below < 1.0, "0 < stop_below < 1");
+}
+
+void read_general_stops(TableReader& r, AnalysisInput& a) {
+  a.max_load_factor = r.optional_number("max_load_factor");
+  if (a.max_load_factor)
+    r.check("max_load_factor", *a.max_load_factor, *a.max_load_factor > 0.0, "max_load_factor > 0");
+  else if (a.control == Control::load)
+    a.max_load_factor = 1.0;
+  if (const toml::node* n = r.node("control_dof"))
+    a.control_dof = read_group_dof(*n, r.file(), r.key_path("control_dof"));
+  a.max_displacement = r.optional_number("max_displacement");
+  if (a.max_displacement)
+    r.check("max_displacement", *a.max_displacement, *a.max_displacement != 0.0,
+            "max_displacement != 0 (its sign gives the direction)");
+  const bool displacement = a.control == Control::displacement;
+  if ((displacement || a.max_displacement) && !a.control_dof)
+    r.fail("control_dof", "no value",
+           std::string("{ group = \"...\", dof = \"ux\" } ") +
+               (displacement ? "for control = \"displacement\"" : "to go with max_displacement"));
+  if ((displacement || a.control_dof) && !a.max_displacement)
+    r.fail("max_displacement", "no value",
+           std::string("the target value of control_dof [mm or rad] ") +
+               (displacement ? "for control = \"displacement\"" : "to go with control_dof"));
+  if (const toml::array* list = r.optional_array("monitor"))
+    for (std::size_t i = 0; i < list->size(); ++i)
+      a.monitor.push_back(read_group_dof(*list->get(i), r.file(),
+                                         r.key_path("monitor") + "[" + std::to_string(i) + "]"));
+}
+
+}  // namespace
+
+void read_analysis(TableReader& r, CaseInput& c) {
+  AnalysisInput& a = c.analysis;
+  const bool generated = c.kind == ModelKind::generated;
+  a.control = read_choice(r, "control", generated ? Control::arc_length : Control::linear);
+  read_tolerances(r, a);
+  read_stepping(r, a);
+  if (generated) {
+    a.max_rotation = r.number("max_rotation", a.max_rotation);
+    r.check("max_rotation", a.max_rotation, a.max_rotation > 0.0, "max_rotation > 0 [rad]");
+    for (const char* key : {"max_load_factor", "control_dof", "max_displacement", "monitor"})
+      r.forbid(key, "it only in general models ([model]); generated models are controlled by "
+                    "their load point and stop at max_rotation");
+  } else {
+    r.forbid("max_rotation", "it only in generated models (general models stop at "
+                             "max_load_factor, max_displacement or max_steps)");
+    read_general_stops(r, a);
+  }
+  r.finish();
+}
+
+}  // namespace rotcap::detail

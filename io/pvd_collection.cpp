@@ -1,0 +1,62 @@
+#include "io/pvd_collection.hpp"
+
+#include "io/input_error.hpp"
+
+#include <cstdio>
+#include <fstream>
+
+namespace rotcap {
+
+namespace {
+
+/// XML attribute value escaping (XML 1.0, section 2.4).
+std::string xml_escape(const std::string& s) {
+  std::string out;
+  for (char c : s) {
+    switch (c) {
+      case '&': out += "&amp;"; break;
+      case '<': out += "&lt;"; break;
+      case '>': out += "&gt;"; break;
+      case '"': out += "&quot;"; break;
+      case '\'': out += "&apos;"; break;
+      default: out += c;
+    }
+  }
+  return out;
+}
+
+}  // namespace
+
+PvdCollection::PvdCollection(std::filesystem::path pvd_file) : file_(std::move(pvd_file)) { write(); }
+
+void PvdCollection::add(double time, const std::filesystem::path& dataset) {
+  const std::filesystem::path folder = std::filesystem::absolute(file_).parent_path();
+  const std::filesystem::path relative = std::filesystem::absolute(dataset).lexically_relative(folder);
+  entries_.push_back({time, (relative.empty() ? dataset : relative).generic_string()});
+  write();
+}
+
+void PvdCollection::write() const {
+  const std::filesystem::path temporary = file_.string() + ".part";
+  {
+    std::ofstream out(temporary, std::ios::trunc);
+    if (!out) throw OutputError(file_, "cannot create " + temporary.string());
+    out << "<?xml version=\"1.0\"?>\n"
+        << "<VTKFile type=\"Collection\" version=\"0.1\" byte_order=\"LittleEndian\">\n"
+        << "  <Collection>\n";
+    char time[32];
+    for (const Entry& e : entries_) {
+      std::snprintf(time, sizeof time, "%.17g", e.time);
+      out << "    <DataSet timestep=\"" << time << "\" group=\"\" part=\"0\" file=\""
+          << xml_escape(e.file) << "\"/>\n";
+    }
+    out << "  </Collection>\n</VTKFile>\n";
+    out.flush();
+    if (!out) throw OutputError(file_, "writing " + temporary.string() + " failed");
+  }
+  std::error_code ec;
+  std::filesystem::rename(temporary, file_, ec);
+  if (ec) throw OutputError(file_, "renaming " + temporary.string() + " failed: " + ec.message());
+}
+
+}  // namespace rotcap

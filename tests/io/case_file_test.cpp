@@ -1,0 +1,216 @@
+// Case files: a full generated case, the defaults of minimal cases, general cases, amplitudes,
+// the steel table and the JSON echo. Inputs are the schema of /work/shared/design/interface.md;
+// expected values are the inputs themselves (or the documented defaults in io/case_file.hpp).
+#include "io/amplitude.hpp"
+#include "io/case_echo.hpp"
+#include "io/case_file.hpp"
+#include "tests/io/io_test_support.hpp"
+#include "tests/test_support.hpp"
+
+namespace rotcap {
+namespace {
+
+using testing::data_file;
+
+// A general case whose mesh is the test plate (relative to tests/data, like a case file there).
+CaseInput general_case(const std::string& body) {
+  return parse_case_text("[model]\nmesh = \"io_two_region_plate.msh\"\nthickness = 8.0\n"
+                         "[[support]]\ngroup = \"clamped\"\nfix = [\"ux\", \"uy\", \"uz\"]\n"
+                         "[[load]]\ngroup = \"tip\"\nforce = [0.0, 0.0, -1.0]\n[steel]\ncurve = \"elastic\"\n" + body,
+                         data_file("inline_general.toml"));
+}
+
+const char* kMinimalGenerated = R"(
+[section]
+depth = 300
+flange_width = 150
+flange_thickness = 10.7
+web_thickness = 7.1
+[steel]
+fy = 355
+fu = 490
+[member]
+setup = "cantilever"
+length = 1500
+)";
+
+TEST(CaseFile, ReadsEveryTableOfAGeneratedCase) {
+  const CaseInput c = read_case_file(data_file("io_cantilever.toml"));
+  EXPECT_EQ(c.kind, ModelKind::generated);
+  EXPECT_EQ(c.title, "Car-park floor girder, hogging hinge over the interior column");
+  EXPECT_EQ(c.section.depth, 450.0);
+  EXPECT_EQ(c.section.flange_width, 190.0);
+  EXPECT_EQ(c.section.flange_thickness, 14.6);
+  EXPECT_EQ(c.section.web_thickness, 9.4);
+  EXPECT_EQ(c.steel.E, 210000.0);
+  EXPECT_EQ(c.steel.fy.value(), 355.0);
+  EXPECT_EQ(c.steel.fu.value(), 490.0);
+  EXPECT_EQ(c.steel.curve, SteelCurve::quadlinear);
+  EXPECT_EQ(c.member.setup, Setup::cantilever);
+  EXPECT_EQ(c.member.length, 2000.0);
+  EXPECT_EQ(c.member.stiffeners, StiffenerLayout::supports_and_loads);
+  ASSERT_EQ(c.lateral_restraints.size(), 2u);
+  EXPECT_EQ(c.lateral_restraints[1].x, 1000.0);
+  EXPECT_EQ(c.lateral_restraints[1].flange, Flange::top);
+  EXPECT_EQ(c.imperfection.local, LocalImperfection::buckling_mode);
+  EXPECT_EQ(c.imperfection.local_amplitude.base, "b");
+  EXPECT_EQ(c.imperfection.local_amplitude.divisor, 200.0);
+  EXPECT_EQ(c.imperfection.global_amplitude.base, "L");
+  EXPECT_EQ(c.imperfection.global_amplitude.divisor, 1000.0);
+  EXPECT_EQ(c.residual_stress, ResidualPattern::hot_rolled);
+  EXPECT_EQ(c.mesh.flange_elements, 8);
+  EXPECT_EQ(c.mesh.web_elements, 10);
+  EXPECT_EQ(c.mesh.layers, 5);
+  EXPECT_EQ(c.analysis.control, Control::arc_length);
+  EXPECT_EQ(c.analysis.max_rotation, 0.15);
+  EXPECT_EQ(c.analysis.stop_below, 0.75);
+  EXPECT_EQ(c.analysis.max_steps, 500);
+  EXPECT_EQ(c.buckling.modes, 6);
+  EXPECT_EQ(c.output.fields_every, 5);
+}
+
+TEST(CaseFile, FillsTheDocumentedDefaultsOfAMinimalGeneratedCase) {
+  const CaseInput c = parse_case_text(kMinimalGenerated, "minimal.toml");
+  EXPECT_EQ(c.title, "");
+  EXPECT_EQ(c.steel.E, 210000.0);
+  EXPECT_EQ(c.steel.nu, 0.3);
+  EXPECT_EQ(c.steel.curve, SteelCurve::quadlinear);
+  EXPECT_EQ(c.member.axial_load_ratio, 0.0);
+  EXPECT_TRUE(c.lateral_restraints.empty());
+  EXPECT_EQ(c.imperfection.local, LocalImperfection::buckling_mode);
+  EXPECT_EQ(c.imperfection.local_amplitude.text, "b/200");
+  EXPECT_EQ(c.imperfection.global_amplitude.text, "L/1000");
+  EXPECT_EQ(c.residual_stress, ResidualPattern::none);
+  EXPECT_EQ(c.mesh.layers, 5);
+  const AnalysisInput& a = c.analysis;
+  EXPECT_EQ(a.control, Control::arc_length);
+  EXPECT_EQ(a.force_tolerance, 1e-6);
+  EXPECT_EQ(a.displacement_tolerance, 1e-6);
+  EXPECT_EQ(a.max_iterations, 20);
+  EXPECT_EQ(a.first_step, 0.1);
+  EXPECT_EQ(a.min_step_ratio, 1e-4);
+  EXPECT_EQ(a.target_iterations, 5);
+  EXPECT_EQ(a.arc_length_form, ArcLengthForm::cylindrical);
+  EXPECT_FALSE(a.max_load_factor.has_value());
+  EXPECT_EQ(c.buckling.modes, 4);
+  EXPECT_EQ(c.output.fields_every, 5);
+}
+
+TEST(CaseFile, ReadsAGeneralCaseWithItsOwnDefaults) {
+  const CaseInput c = general_case("");
+  EXPECT_EQ(c.kind, ModelKind::general);
+  EXPECT_EQ(c.analysis.control, Control::linear);
+  EXPECT_EQ(c.imperfection.local, LocalImperfection::none);
+  EXPECT_EQ(c.imperfection.global_amplitude.resolve(1000.0), 0.0);
+  EXPECT_EQ(c.model.thickness.value(), 8.0);
+  ASSERT_EQ(c.supports.size(), 1u);
+  EXPECT_TRUE(c.supports[0].fixed[static_cast<int>(Dof::uz)]);
+  EXPECT_FALSE(c.supports[0].fixed[static_cast<int>(Dof::rx)]);
+  ASSERT_EQ(c.loads.size(), 1u);
+  EXPECT_EQ(c.loads[0].force[2], -1.0);
+  EXPECT_EQ(c.loads[0].moment[1], 0.0);
+  // Load control lands on max_load_factor = 1 unless told otherwise.
+  EXPECT_EQ(general_case("[analysis]\ncontrol = \"load\"\n").analysis.max_load_factor.value(), 1.0);
+}
+
+TEST(CaseFile, ReadsDisplacementControlAndMonitors) {
+  const CaseInput c = general_case(
+      "[analysis]\ncontrol = \"displacement\"\ncontrol_dof = { group = \"tip\", dof = \"uz\" }\n"
+      "max_displacement = -20.0\nmonitor = [{ group = \"corner\", dof = \"ry\" }]\n");
+  ASSERT_TRUE(c.analysis.control_dof.has_value());
+  EXPECT_EQ(c.analysis.control_dof->group, "tip");
+  EXPECT_EQ(c.analysis.control_dof->dof, Dof::uz);
+  EXPECT_EQ(c.analysis.max_displacement.value(), -20.0);
+  ASSERT_EQ(c.analysis.monitor.size(), 1u);
+  EXPECT_EQ(c.analysis.monitor[0].dof, Dof::ry);
+  EXPECT_EQ(c.analysis.monitor[0].line, 16);  // the monitor line of the inline text
+}
+
+TEST(CaseFile, ResolvesTheMeshAgainstTheCaseFilesFolder) {
+  const CaseInput c = read_case_file(data_file("io_two_region_plate.toml"));
+  EXPECT_EQ(c.model.mesh_as_written, "io_two_region_plate.msh");
+  EXPECT_EQ(c.model.mesh, data_file("io_two_region_plate.msh").lexically_normal());
+  ASSERT_EQ(c.thickness.size(), 2u);
+  EXPECT_EQ(c.thickness[1].group, "thick");
+  EXPECT_EQ(c.thickness[1].value, 10.0);
+  EXPECT_EQ(c.mesh.layers, 7);
+  EXPECT_EQ(c.analysis.control, Control::arc_length);
+  EXPECT_EQ(c.analysis.max_load_factor.value(), 2.0);
+}
+
+TEST(CaseFile, ReadsATrueStressTableAndStiffenerPositions) {
+  std::string text = kMinimalGenerated;
+  text.replace(text.find("fu = 490"), 8,
+               "curve = \"table\"\ntable = [[355.0, 0.0], [355.0, 0.015], [480.0, 0.10]]");
+  text += "stiffeners = [0.0, 750.0, 1500]\nstiffener_thickness = 12\n";
+  const CaseInput c = parse_case_text(text, "table.toml");
+  ASSERT_EQ(c.steel.table.size(), 3u);
+  EXPECT_EQ(c.steel.table[2][0], 480.0);
+  EXPECT_EQ(c.steel.table[2][1], 0.10);
+  EXPECT_EQ(c.member.stiffeners, StiffenerLayout::positions);
+  ASSERT_EQ(c.member.stiffener_positions.size(), 3u);
+  EXPECT_EQ(c.member.stiffener_positions[1], 750.0);
+  EXPECT_EQ(c.member.stiffener_thickness.value(), 12.0);
+}
+
+TEST(CaseFile, TakesTheDimensionsOfADesignationFromTheSectionTable) {
+  std::string text = kMinimalGenerated;
+  text.replace(text.find("depth = 300"), text.find("[steel]") - text.find("depth = 300"),
+               "designation = \"ipe450\"\n");
+  const CaseInput c = parse_case_text(text, "ipe.toml");
+  // IPE 450 of EN 10365 (Euronorm 19-57): h 450, b 190, tw 9.4, tf 14.6, r 21 mm.
+  EXPECT_EQ(c.section.designation, "IPE 450");
+  EXPECT_EQ(c.section.depth, 450.0);
+  EXPECT_EQ(c.section.flange_width, 190.0);
+  EXPECT_EQ(c.section.web_thickness, 9.4);
+  EXPECT_EQ(c.section.flange_thickness, 14.6);
+  EXPECT_EQ(c.section.root_radius, 21.0);
+  EXPECT_EQ(to_json(c)["section"]["designation"], "IPE 450");
+  EXPECT_TRUE(to_json(parse_case_text(kMinimalGenerated, "p.toml"))["section"]["designation"].is_null());
+}
+
+TEST(Amplitude, ParsesRatiosAndRejectsEverythingElse) {
+  const auto a = parse_amplitude("b/200");
+  ASSERT_TRUE(a.has_value());
+  EXPECT_EQ(a->kind, Amplitude::Kind::ratio);
+  EXPECT_EQ(a->base, "b");
+  EXPECT_EQ(a->divisor, 200.0);
+  EXPECT_CLOSE(a->resolve(190.0), 0.95, 1e-15, 0.0);  // 190 / 200
+  const auto b = parse_amplitude(" L / 1000 ");
+  ASSERT_TRUE(b.has_value());
+  EXPECT_EQ(b->base, "L");
+  EXPECT_EQ(b->divisor, 1000.0);
+  EXPECT_TRUE(parse_amplitude("h/150.5").has_value());
+  for (const char* bad : {"b/0", "b/-200", "x/200", "b/", "/200", "200", "b/200mm", "b//200", "b/nan", ""})
+    EXPECT_FALSE(parse_amplitude(bad).has_value()) << bad;
+  EXPECT_EQ(amplitude_mm(2.5).resolve(1e6), 2.5);
+}
+
+TEST(CaseEcho, EchoesTheInputsWithDefaults) {
+  const nlohmann::json g = to_json(read_case_file(data_file("io_cantilever.toml")));
+  EXPECT_EQ(g["kind"], "generated");
+  EXPECT_EQ(g["section"]["depth"], 450.0);
+  EXPECT_EQ(g["steel"]["curve"], "quadlinear");
+  EXPECT_EQ(g["member"]["setup"], "cantilever");
+  EXPECT_EQ(g["restraints"]["lateral"][1]["flange"], "top");
+  EXPECT_EQ(g["imperfection"]["local_amplitude"], "b/200");
+  EXPECT_EQ(g["residual_stress"]["pattern"], "hot_rolled");
+  EXPECT_EQ(g["analysis"]["max_iterations"], 20);
+  EXPECT_EQ(g["analysis"]["max_rotation"], 0.15);
+  EXPECT_FALSE(g.contains("model"));
+  EXPECT_EQ(nlohmann::json::parse(g.dump()), g);
+
+  const nlohmann::json m = to_json(read_case_file(data_file("io_two_region_plate.toml")));
+  EXPECT_EQ(m["kind"], "general");
+  EXPECT_EQ(m["model"]["mesh"], "io_two_region_plate.msh");
+  EXPECT_TRUE(m["model"]["thickness"].is_null());
+  EXPECT_EQ(m["thickness"][0]["group"], "thin");
+  EXPECT_EQ(m["support"][0]["fix"].size(), 6u);
+  EXPECT_EQ(m["load"][1]["moment"][1], 5.0e4);
+  EXPECT_EQ(m["analysis"]["monitor"][1]["dof"], "ry");
+  EXPECT_EQ(m["imperfection"]["global_amplitude"], 0.0);
+  EXPECT_FALSE(m.contains("section"));
+}
+
+}  // namespace
+}  // namespace rotcap
