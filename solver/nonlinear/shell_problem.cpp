@@ -15,10 +15,13 @@ double seconds_since(std::chrono::steady_clock::time_point t0) {
 
 ShellProblem::ShellProblem(const ShellModel& model, const SectionAssignment& sections,
                            const ShellProblemOptions& options)
-    : model_(model), sections_(sections), options_(options), dofs_(model) {
-  validate_topology(model_);
+    : model_(model),
+      sections_(sections),
+      options_(options),
+      ties_((validate_topology(model), model)),
+      dofs_(model.node_count(), ties_.held_dofs(model)) {
   sections_.check(model_);
-  element_nodes_ = element_nodes(model_);
+  element_nodes_ = ties_.effective_nodes(model_);
   pattern_ = std::make_unique<SparsePattern>(element_nodes_, dofs_);
   assembler_ = std::make_unique<Assembler>(*pattern_, element_nodes_);
   elements_.reserve(model_.elements.size());
@@ -63,6 +66,11 @@ void ShellProblem::gather(int e, NodalCoordinates& x, NodalRotations& R) const {
 
 ElementKernel ShellProblem::kernel(std::vector<ShellQ4Resultants>* out) const {
   return [this, out](int e, Mat24* K, Vec24* f) {
+    if (ties_.is_tied_element(e)) {  // added by add_tied_elements()
+      if (K) K->setZero();
+      if (f) f->setZero();
+      return ElementStatus::Ok;
+    }
     NodalCoordinates x;
     NodalRotations R;
     gather(e, x, R);
@@ -82,11 +90,12 @@ EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool fa
   const auto t0 = std::chrono::steady_clock::now();
   const AssemblySummary a =
       assembler_->assemble(kernel(nullptr), factorise_tangent ? &values_ : nullptr, &f_full_, {options_.threads});
-  assembly_seconds_ += seconds_since(t0);
   if (!a.ok) {
     message_ = a.message;
     return EvaluationStatus::ElementFailed;
   }
+  if (!add_tied_elements(factorise_tangent)) return EvaluationStatus::ElementFailed;
+  assembly_seconds_ += seconds_since(t0);
   internal_force = dofs_.gather(f_full_);
   if (!internal_force.allFinite()) {
     message_ = "internal force is not finite";
@@ -117,6 +126,28 @@ EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool fa
   return EvaluationStatus::Ok;
 }
 
+bool ShellProblem::add_tied_elements(bool with_tangent) {
+  for (int e : ties_.tied_elements()) {
+    NodalCoordinates x;
+    NodalRotations R;
+    gather(e, x, R);
+    const std::size_t begin = history_offset_[e];
+    const std::size_t count = history_offset_[e + 1] - begin;
+    Vec24 f;
+    Mat24 K;
+    const ElementStatus status = elements_[e].compute(
+        x, R, sections_.of(e), std::span<const LayerState>(history_committed_.data() + begin, count),
+        std::span<LayerState>(history_trial_.data() + begin, count), f, with_tangent ? &K : nullptr);
+    if (status != ElementStatus::Ok) {
+      message_ = "element " + std::to_string(e) + " failed: " + element_status_name(status);
+      return false;
+    }
+    ties_.add_element(model_.elements[e].nodes, x, with_tangent ? &K : nullptr, f, model_.nodes, u_, dofs_,
+                      *pattern_, with_tangent ? &values_ : nullptr, f_full_);
+  }
+  return true;
+}
+
 void ShellProblem::solve(const Eigen::VectorXd& rhs, Eigen::VectorXd& x) {
   if (!active_) throw std::logic_error("ShellProblem::solve before a factorisation");
   x.resize(rhs.size());
@@ -141,6 +172,7 @@ void ShellProblem::update(const Eigen::VectorXd& du) {
     }
     if (any) R_[node] = rotation_exp(w) * R_[node];
   }
+  ties_.place_slaves(model_.nodes, u_, R_);
 }
 
 void ShellProblem::commit() {

@@ -3,6 +3,7 @@
 // corotational four-node shell (CorotationalShellQ4), any ShellSection (elastic or layered plastic),
 // the pattern and element colouring built once, and CHOLMOD factorisations reusing their analyses.
 //
+// Rigid sections (ShellModel::rigid_ties) are imposed by elimination (rigid_ties.hpp).
 // State: nodal translations u_i (additive) and rotation matrices R_i (multiplicative update
 // R_i <- exp(skew(dw_i)) R_i, never adding angles), plus the section history of every element.
 // The committed state is the last converged step; evaluate() works on the trial state and writes
@@ -20,6 +21,7 @@
 #include "solver/assembler.hpp"
 #include "solver/cholmod_factor.hpp"
 #include "solver/dof_map.hpp"
+#include "solver/nonlinear/rigid_ties.hpp"
 #include "solver/path/equilibrium_problem.hpp"
 #include "solver/section_assignment.hpp"
 #include "solver/sparse_pattern.hpp"
@@ -85,11 +87,14 @@ class ShellProblem final : public EquilibriumProblem {
 
  private:
   ElementKernel kernel(std::vector<ShellQ4Resultants>* out) const;
+  /// Elements with tied nodes, evaluated and added serially (see rigid_ties.hpp).
+  bool add_tied_elements(bool with_tangent);
   void gather(int e, NodalCoordinates& x, NodalRotations& R) const;
 
   const ShellModel& model_;
   const SectionAssignment& sections_;
   ShellProblemOptions options_;
+  RigidTieSet ties_;
   DofMap dofs_;
   std::vector<ElementNodes> element_nodes_;
   std::unique_ptr<SparsePattern> pattern_;
