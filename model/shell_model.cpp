@@ -47,9 +47,11 @@ std::vector<double> tributary_weights(const ShellModel& model, const NodeGroup& 
   return w;
 }
 
-Eigen::VectorXd reference_load_vector(const ShellModel& model) {
+Eigen::VectorXd reference_load_vector(const ShellModel& model) { return load_vector(model, model.loads); }
+
+Eigen::VectorXd load_vector(const ShellModel& model, const std::vector<GroupLoad>& loads) {
   Eigen::VectorXd f = Eigen::VectorXd::Zero(model.dof_count());
-  for (const auto& load : model.loads) {
+  for (const auto& load : loads) {
     const NodeGroup& g = model.groups.at(load.group);
     const std::vector<double> w = tributary_weights(model, g);
     for (std::size_t i = 0; i < g.nodes.size(); ++i) {
@@ -74,6 +76,18 @@ void validate_topology(const ShellModel& model) {
       throw std::invalid_argument("element " + std::to_string(e) + " has thickness " +
                                   std::to_string(el.thickness) + "; expected > 0");
   }
+  for (const auto& tie : model.rigid_ties) {
+    if (tie.reference_node < 0 || tie.reference_node >= model.node_count())
+      throw std::invalid_argument("rigid tie of group '" + tie.group + "' refers to node " +
+                                  std::to_string(tie.reference_node) + ", which does not exist");
+    used[tie.reference_node] = 1;
+    const auto g = model.groups.find(tie.group);
+    if (g == model.groups.end())
+      throw std::invalid_argument("rigid tie refers to group '" + tie.group + "', which does not exist");
+    for (int n : g->second.nodes)
+      if (n == tie.reference_node)
+        throw std::invalid_argument("rigid tie of group '" + tie.group + "' contains its own reference node");
+  }
   for (std::size_t n = 0; n < used.size(); ++n)
     if (!used[n])
       throw std::invalid_argument("node " + std::to_string(n) +
@@ -81,8 +95,9 @@ void validate_topology(const ShellModel& model) {
   for (const auto& s : model.supports)
     if (!model.groups.count(s.group))
       throw std::invalid_argument("support refers to group '" + s.group + "', which does not exist");
-  for (const auto& l : model.loads)
-    if (!model.groups.count(l.group))
+  for (const auto* loads : {&model.loads, &model.fixed_loads})
+    for (const auto& l : *loads)
+      if (!model.groups.count(l.group))
       throw std::invalid_argument("load refers to group '" + l.group + "', which does not exist");
 }
 

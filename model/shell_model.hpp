@@ -48,6 +48,16 @@ struct GroupLoad {
   Eigen::Vector3d moment = Eigen::Vector3d::Zero();
 };
 
+/// A rigid section: every node of `group` moves with the reference node as one rigid body,
+///   x_i = x_ref + R_ref (X_i - X_ref),   R_i = R_ref,
+/// a kinematic coupling exact at large rotations, imposed by elimination (the group's nodes lose
+/// their own DOFs). The reference node may belong to no element (it is then exempt from the
+/// "used by an element" check); it must not itself be in the group.
+struct RigidTie {
+  std::string group;
+  int reference_node = -1;
+};
+
 struct ShellModel {
   std::vector<Eigen::Vector3d> nodes;      ///< initial coordinates [mm]
   std::vector<ShellElement> elements;
@@ -55,6 +65,8 @@ struct ShellModel {
   std::map<std::string, NodeGroup> groups;
   std::vector<Support> supports;
   std::vector<GroupLoad> loads;            ///< the reference load (load factor 1)
+  std::vector<GroupLoad> fixed_loads;      ///< applied first and held (e.g. an axial force)
+  std::vector<RigidTie> rigid_ties;
 
   int node_count() const { return static_cast<int>(nodes.size()); }
   int element_count() const { return static_cast<int>(elements.size()); }
@@ -66,6 +78,8 @@ std::vector<double> tributary_weights(const ShellModel& model, const NodeGroup& 
 
 /// The reference load as a global nodal vector of size dof_count().
 Eigen::VectorXd reference_load_vector(const ShellModel& model);
+/// The same for any list of group loads (e.g. model.fixed_loads).
+Eigen::VectorXd load_vector(const ShellModel& model, const std::vector<GroupLoad>& loads);
 
 /// Checks that every element's nodes exist, thicknesses are positive, every node is used by an
 /// element and every support or load names an existing group. Throws InputError (io/input_error.hpp
