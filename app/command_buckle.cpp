@@ -1,0 +1,72 @@
+// rotcap buckle CASE.toml: linear buckling load factors and mode shapes under the reference load.
+#include "app/commands.hpp"
+#include "app/field_export.hpp"
+#include "app/logging.hpp"
+#include "app/model_builder.hpp"
+#include "app/output_folder.hpp"
+#include "app/sections.hpp"
+#include "io/case_echo.hpp"
+#include "io/input_error.hpp"
+#include "io/pvd_collection.hpp"
+#include "solver/linear_buckling.hpp"
+
+#include <nlohmann/json.hpp>
+
+#include <cstdio>
+#include <fstream>
+
+namespace rotcap::app {
+
+int command_buckle(const CommandOptions& options) {
+  // 1. The model and the number of modes.
+  const BuiltCase built = build_case(options.case_file);
+  const int n_modes = options.modes.value_or(built.input.buckling.modes);
+  if (n_modes < 1)
+    throw InputError(options.case_file, 0, "-n", std::to_string(n_modes), "a number of modes >= 1");
+  const auto folder = prepare_output_folder(options.case_file, options.output, options.overwrite);
+  add_log_file(folder);
+  log_info("rotcap buckle " + options.case_file.string() + " -> " + folder.string());
+  // 2. The eigenproblem K phi = lambda (-Kg) phi about the linear state under the reference load.
+  const SectionAssignment sections = make_sections(built.model, built.input.steel, built.input.mesh.layers, true);
+  BucklingOptions bo;
+  bo.prebuckling.threads = options.threads;
+  const BucklingResult result = solve_linear_buckling(built.model, sections, n_modes, bo);
+  // 3. buckling.json and the mode shapes.
+  nlohmann::json j{{"title", built.input.title}, {"input", to_json(built.input)}, {"caution", kCaution},
+                   {"status", buckling_status_name(result.status)}, {"message", result.message},
+                   {"load_factors", result.load_factors},
+                   {"sturm_check", {{"done", result.sturm.done}, {"shift", result.sturm.shift},
+                                    {"modes_below_shift", result.sturm.modes_below_shift},
+                                    {"negative_pivots", result.sturm.negative_pivots},
+                                    {"passed", result.sturm.passed()}}}};
+  std::filesystem::create_directories(folder / "modes");
+  PvdCollection pvd(folder / "modes.pvd");
+  for (std::size_t k = 0; k < result.modes.size(); ++k) {
+    char name[32];
+    std::snprintf(name, sizeof name, "mode_%02zu.vtu", k + 1);
+    write_shell_fields(folder / "modes" / name, built.model, result.modes[k], ElementResults{});
+    pvd.add(static_cast<double>(k + 1), std::filesystem::path("modes") / name);
+  }
+  {
+    std::ofstream out(folder / "buckling.json");
+    out << j.dump(2) << "\n";
+  }
+  for (std::size_t k = 0; k < result.load_factors.size(); ++k) {
+    char line[96];
+    std::snprintf(line, sizeof line, "mode %2zu: load factor %.6g", k + 1, result.load_factors[k]);
+    log_info(line);
+  }
+  if (result.sturm.done)
+    log_info("Sturm check: " + std::to_string(result.sturm.negative_pivots) + " eigenvalues below " +
+             std::to_string(result.sturm.shift) + ", " + std::to_string(result.sturm.modes_below_shift) +
+             " found" + (result.sturm.passed() ? " (passed)" : " (MISMATCH: a mode may be missing)"));
+  log_info("modes in " + (folder / "modes.pvd").string());
+  close_log_file();
+  if (!result.ok()) {
+    log_error(result.message);
+    return result.status == BucklingStatus::NoPositiveModes ? kExitOk : kExitStoppedEarly;
+  }
+  return kExitOk;
+}
+
+}  // namespace rotcap::app

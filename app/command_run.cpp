@@ -1,0 +1,35 @@
+// rotcap run CASE.toml: the full analysis of a case, results into the output folder.
+#include "app/commands.hpp"
+#include "app/general_analysis.hpp"
+#include "app/logging.hpp"
+#include "app/model_builder.hpp"
+#include "app/output_folder.hpp"
+
+namespace rotcap::app {
+
+const char* const kCaution =
+    "rotcap results support, and never replace, the design of a structure to the governing code by a "
+    "qualified engineer; check them against local codes and licensed practice.";
+
+int command_run(const CommandOptions& options) {
+  // 1. Read, validate and build the model before anything is written.
+  const BuiltCase built = build_case(options.case_file);
+  // 2. The output folder and its log file.
+  const auto folder = prepare_output_folder(options.case_file, options.output, options.overwrite);
+  add_log_file(folder);
+  log_info("rotcap run " + options.case_file.string() + " -> " + folder.string());
+  if (!built.input.title.empty()) log_info("title: " + built.input.title);
+  for (const std::string& line : built.description) log_info(line);
+  log_info("caution: " + std::string(kCaution));
+  // 3. The analysis.
+  int code = kExitOk;
+  if (built.input.analysis.control == Control::linear)
+    code = run_general_linear(built.input, built.model, folder, options.threads);
+  else
+    code = run_general_path(built.input, built.model, folder, options.threads);
+  log_info("results in " + folder.string());
+  close_log_file();
+  return code;
+}
+
+}  // namespace rotcap::app

@@ -1,0 +1,33 @@
+#pragma once
+// The commands of the rotcap command line. Each returns the process exit code:
+//   0 done; 2 bad input (InputError); 3 stopped early with partial results kept; 1 internal error.
+#include <filesystem>
+#include <optional>
+#include <string>
+
+namespace rotcap::app {
+
+constexpr int kExitOk = 0;
+constexpr int kExitInternal = 1;
+constexpr int kExitBadInput = 2;
+constexpr int kExitStoppedEarly = 3;
+
+/// The caution every report carries.
+extern const char* const kCaution;
+
+struct CommandOptions {
+  std::filesystem::path case_file;
+  std::optional<std::filesystem::path> output;  ///< -o DIR
+  bool overwrite = false;
+  bool quiet = false;
+  int threads = 0;                              ///< 0: OpenMP default
+  std::optional<int> modes;                     ///< buckle -n
+};
+
+int command_check(const CommandOptions& options);
+int command_run(const CommandOptions& options);
+int command_buckle(const CommandOptions& options);
+/// Writes the bundled demo case into the output folder and runs it.
+int command_demo(const CommandOptions& options);
+
+}  // namespace rotcap::app

@@ -1,0 +1,231 @@
+#include "app/general_analysis.hpp"
+
+#include "app/commands.hpp"
+#include "app/logging.hpp"
+#include "app/run_recorder.hpp"
+#include "app/sections.hpp"
+#include "io/case_echo.hpp"
+#include "io/input_error.hpp"
+#include "solver/linear_static.hpp"
+#include "solver/nonlinear/shell_problem.hpp"
+#include "solver/path/path_follower.hpp"
+
+#include <chrono>
+#include <cmath>
+#include <cstdio>
+#include <memory>
+
+namespace rotcap::app {
+
+namespace fs = std::filesystem;
+
+namespace {
+
+/// Mean of a DOF over a group's nodes, from a full displacement vector.
+double group_mean(const ShellModel& model, const GroupDof& g, const Eigen::VectorXd& u) {
+  const NodeGroup& group = model.groups.at(g.group);
+  double s = 0.0;
+  for (int n : group.nodes) s += u[kDofsPerNode * n + static_cast<int>(g.dof)];
+  return s / static_cast<double>(group.nodes.size());
+}
+
+std::vector<std::string> curve_columns(const CaseInput& input) {
+  std::vector<std::string> c{"step", "load_factor"};
+  for (const GroupDof& m : input.analysis.monitor) c.push_back(std::string(dof_name(m.dof)) + "@" + m.group);
+  c.insert(c.end(), {"max_plastic_strain", "iterations", "negative_pivots"});
+  return c;
+}
+
+ElementResults linear_results(const ShellModel& model, const SectionAssignment& sections,
+                              const std::vector<ShellQ4Resultants>& resultants) {
+  ElementResults r;
+  r.resultants = resultants;
+  r.surfaces.resize(resultants.size());
+  for (int e = 0; e < model.element_count(); ++e)
+    for (int gp = 0; gp < 4; ++gp) r.surfaces[e][gp] = sections.of(e).surfaces(resultants[e].g[gp], {});
+  return r;
+}
+
+ElementResults snapshot_results(const ShellProblem& problem) {
+  ElementResults r;
+  for (ElementSnapshot& s : problem.snapshot()) {
+    r.resultants.push_back(s.resultants);
+    r.surfaces.push_back(s.surfaces);
+  }
+  return r;
+}
+
+nlohmann::json model_size(const ShellModel& model, int free_dofs) {
+  return {{"nodes", model.node_count()}, {"elements", model.element_count()},
+          {"dofs", model.dof_count()}, {"free_dofs", free_dofs}};
+}
+
+/// The weights c of a displacement-controlled group mean over the free DOFs.
+Eigen::VectorXd control_weights(const CaseInput& input, const ShellModel& model, const DofMap& dofs) {
+  const GroupDof& g = *input.analysis.control_dof;
+  const NodeGroup& group = model.groups.at(g.group);
+  Eigen::VectorXd c = Eigen::VectorXd::Zero(dofs.free_count());
+  for (int n : group.nodes) {
+    const int q = dofs.equation(n, g.dof);
+    if (q < 0)
+      throw InputError(input.file, g.line, "analysis.control_dof",
+                       std::string(dof_name(g.dof)) + " of a node of group '" + g.group + "' held by a support",
+                       "a free DOF to control");
+    c[q] = 1.0 / static_cast<double>(group.nodes.size());
+  }
+  return c;
+}
+
+}  // namespace
+
+int run_general_linear(const CaseInput& input, const ShellModel& model, const fs::path& folder, int threads) {
+  const SectionAssignment sections = make_sections(model, input.steel, input.mesh.layers, true);
+  LinearStaticOptions options;
+  options.threads = threads;
+  log_info("linear static solve: " + std::to_string(model.node_count()) + " nodes, " +
+           std::to_string(model.element_count()) + " shells");
+  const LinearStaticResult result = solve_linear_static(model, sections, options);
+  RunRecorder recorder(folder, curve_columns(input), input.output.fields_every);
+  nlohmann::json summary{{"title", input.title}, {"input", to_json(input)}, {"caution", kCaution}};
+  summary["model"] = model_size(model, result.statistics.free_dofs);
+  if (!result.ok()) {
+    summary["stop_reason"] = linear_static_status_name(result.status);
+    summary["message"] = result.message;
+    recorder.write_summary(summary);
+    log_error("linear solve failed: " + result.message);
+    return kExitStoppedEarly;
+  }
+  const Eigen::VectorXd zero = Eigen::VectorXd::Zero(model.dof_count());
+  for (int step = 0; step <= 1; ++step) {
+    const Eigen::VectorXd& u = step == 0 ? zero : result.displacements;
+    std::vector<double> row{double(step), double(step)};
+    for (const GroupDof& m : input.analysis.monitor) row.push_back(group_mean(model, m, u));
+    row.insert(row.end(), {0.0, double(step), 0.0});
+    recorder.add_row(row);
+  }
+  recorder.write_fields(0, 0.0, model, zero, ElementResults{});
+  recorder.write_fields(1, 1.0, model, result.displacements, linear_results(model, sections, result.resultants));
+  const auto& s = result.statistics;
+  double max_translation = 0.0;
+  for (int n = 0; n < model.node_count(); ++n)
+    max_translation = std::max(max_translation, result.displacements.segment<3>(kDofsPerNode * n).norm());
+  summary["stop_reason"] = "completed";
+  summary["max_translation_mm"] = max_translation;
+  summary["monitors"] = nlohmann::json::object();
+  for (const GroupDof& m : input.analysis.monitor)
+    summary["monitors"][std::string(dof_name(m.dof)) + "@" + m.group] = group_mean(model, m, result.displacements);
+  summary["residual_relative"] = result.backward_error;
+  summary["solver"] = {{"factor_nonzeros", s.factor_nonzeros}, {"assembly_s", s.assembly_seconds},
+                       {"analysis_s", s.analysis_seconds}, {"factorization_s", s.factorization_seconds},
+                       {"solve_s", s.solve_seconds}};
+  recorder.write_summary(summary);
+  log_info("largest translation " + std::to_string(max_translation) + " mm; fields in " +
+           (folder / "fields.pvd").string());
+  return kExitOk;
+}
+
+int run_general_path(const CaseInput& input, const ShellModel& model, const fs::path& folder, int threads) {
+  const auto t_start = std::chrono::steady_clock::now();
+  const AnalysisInput& a = input.analysis;
+  const SectionAssignment sections = make_sections(model, input.steel, input.mesh.layers, false);
+  ShellProblemOptions po;
+  po.threads = threads;
+  ShellProblem problem(model, sections, po);
+  // 1. The step constraint of the chosen control.
+  std::unique_ptr<StepConstraint> constraint;
+  PathOptions options;
+  options.force_tolerance = a.force_tolerance;
+  options.displacement_tolerance = a.displacement_tolerance;
+  options.max_iterations = a.max_iterations;
+  options.first_step = a.first_step;
+  options.min_step_ratio = a.min_step_ratio;
+  options.target_iterations = a.target_iterations;
+  options.max_steps = a.max_steps;
+  if (a.control == Control::load) {
+    constraint = std::make_unique<LoadControl>();
+    options.max_load_factor = a.max_load_factor.value_or(1.0);
+  } else if (a.control == Control::displacement) {
+    constraint = std::make_unique<DisplacementControl>(control_weights(input, model, problem.dofs()));
+    if (a.max_displacement) options.max_control_value = *a.max_displacement;
+  } else {
+    constraint = std::make_unique<ArcLength>(problem.arc_length_weights(), a.arc_length_form == rotcap::ArcLengthForm::normal_plane
+                                                                               ? ArcLength::Form::NormalPlane
+                                                                               : ArcLength::Form::Cylindrical);
+  }
+  if (a.max_load_factor && a.control != Control::load) options.max_load_factor = *a.max_load_factor;
+  // 2. The recorder and the unloaded state as step 0.
+  RunRecorder recorder(folder, curve_columns(input), input.output.fields_every);
+  const Eigen::VectorXd zero = Eigen::VectorXd::Zero(model.dof_count());
+  {
+    std::vector<double> row{0.0, 0.0};
+    for (std::size_t i = 0; i < a.monitor.size(); ++i) row.push_back(0.0);
+    row.insert(row.end(), {0.0, 0.0, 0.0});
+    recorder.add_row(row);
+    recorder.write_fields(0, 0.0, model, zero, ElementResults{});
+  }
+  nlohmann::json summary{{"title", input.title}, {"input", to_json(input)}, {"caution", kCaution}};
+  summary["model"] = model_size(model, problem.size());
+  double lambda_max = 0.0;
+  int last_step = 0;
+  std::string stop_reason = "completed";
+  // 3. Each converged step: a curve row, a progress line, fields when due, stop criteria.
+  auto observer = [&](const ConvergedStep& step) {
+    const Eigen::VectorXd u = problem.displacements();
+    std::vector<double> row{double(step.step), step.load_factor};
+    std::string monitors;
+    for (const GroupDof& m : a.monitor) {
+      row.push_back(group_mean(model, m, u));
+      char buf[96];
+      std::snprintf(buf, sizeof buf, "  %s@%s %.5g", dof_name(m.dof), m.group.c_str(), row.back());
+      monitors += buf;
+    }
+    row.insert(row.end(), {problem.max_plastic_strain(), double(step.iterations), double(step.negative_pivots)});
+    recorder.add_row(row);
+    char line[160];
+    std::snprintf(line, sizeof line, "step %4d  load factor %.6g%s  iterations %d  negative pivots %d%s",
+                  step.step, step.load_factor, monitors.c_str(), step.iterations, step.negative_pivots,
+                  step.cutbacks ? ("  (" + std::to_string(step.cutbacks) + " cut-backs)").c_str() : "");
+    log_info(line);
+    last_step = step.step;
+    const bool peak_passed = step.load_factor < lambda_max;
+    if (recorder.fields_due(step.step)) recorder.write_fields(step.step, step.load_factor, model, u, snapshot_results(problem));
+    lambda_max = std::max(lambda_max, step.load_factor);
+    if (peak_passed && lambda_max > 0.0 && step.load_factor < a.stop_below * lambda_max) {
+      stop_reason = "load factor fell below stop_below x maximum";
+      return false;
+    }
+    if (a.control == Control::arc_length && a.control_dof && a.max_displacement) {
+      const double v = group_mean(model, *a.control_dof, u);
+      if (std::abs(v) >= std::abs(*a.max_displacement)) {
+        stop_reason = "control_dof reached max_displacement";
+        return false;
+      }
+    }
+    return true;
+  };
+  log_info("path following (" + enum_name(a.control) + "): " + std::to_string(problem.size()) + " free DOFs");
+  PathFollower follower(problem, *constraint, options);
+  const PathSummary ps = follower.run(observer);
+  // 4. Final fields and the summary, whatever the outcome.
+  if (!recorder.has_fields(last_step))
+    recorder.write_fields(last_step, ps.load_factor, model, problem.displacements(), snapshot_results(problem));
+  if (ps.status != PathStatus::Completed) stop_reason = to_string(ps.status);
+  else if (ps.message.rfind("landed", 0) == 0) stop_reason = "reached the load or displacement limit";
+  const double wall = std::chrono::duration<double>(std::chrono::steady_clock::now() - t_start).count();
+  summary["stop_reason"] = stop_reason;
+  summary["message"] = ps.message;
+  summary["load_factor_final"] = ps.load_factor;
+  summary["load_factor_max"] = lambda_max;
+  summary["solver"] = {{"steps", ps.steps}, {"iterations", ps.iterations}, {"cutbacks", ps.cutbacks},
+                       {"factorisations", problem.factorisations()},
+                       {"assembly_s", problem.assembly_seconds()},
+                       {"factorisation_s", problem.factorisation_seconds()}, {"wall_s", wall}};
+  recorder.write_summary(summary);
+  log_info("stopped: " + stop_reason + " (" + ps.message + "); " + std::to_string(ps.steps) + " steps, " +
+           std::to_string(ps.iterations) + " iterations, " + std::to_string(ps.cutbacks) + " cut-backs, " +
+           std::to_string(wall) + " s");
+  const bool early = ps.status == PathStatus::StepTooSmall || ps.status == PathStatus::EvaluationFailed;
+  return early ? kExitStoppedEarly : kExitOk;
+}
+
+}  // namespace rotcap::app

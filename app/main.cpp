@@ -1,0 +1,72 @@
+// rotcap: plastic-hinge rotation capacity of steel I-beams by nonlinear shell analysis.
+// The command line, as numbered steps: 1. parse, 2. set up logging, 3. run the command,
+// 4. map failures to exit codes (2 bad input, 3 stopped early, 1 internal error).
+#include "app/commands.hpp"
+#include "app/logging.hpp"
+#include "io/input_error.hpp"
+
+#include <CLI/CLI.hpp>
+
+#include <iostream>
+#include <string>
+
+namespace {
+
+void add_common(CLI::App* cmd, rotcap::app::CommandOptions& o, bool with_case, bool with_output) {
+  if (with_case) cmd->add_option("CASE", o.case_file, "case file (TOML)")->required();
+  if (with_output) {
+    cmd->add_option("-o,--output", o.output, "output folder (default: <case stem>.out next to the case file)");
+    cmd->add_flag("--overwrite", o.overwrite, "replace the results in an existing output folder");
+  }
+  cmd->add_option("--threads", o.threads, "OpenMP threads for element loops (0: all cores)")->check(CLI::NonNegativeNumber);
+  cmd->add_flag("--quiet", o.quiet, "print warnings and errors only");
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  using namespace rotcap::app;
+  // 1. Parse the command line.
+  CLI::App cli{"rotcap: moment-rotation curves and rotation capacity of steel I-beam plastic hinges by "
+               "nonlinear shell analysis (units: mm, N, MPa, rad)"};
+  cli.set_version_flag("--version", "rotcap 0.1.0");
+  cli.require_subcommand(1);
+  CommandOptions o;
+  CLI::App* run = cli.add_subcommand("run", "full analysis of a case");
+  add_common(run, o, true, true);
+  CLI::App* check = cli.add_subcommand("check", "validate a case and print its derived data");
+  add_common(check, o, true, false);
+  CLI::App* buckle = cli.add_subcommand("buckle", "linear buckling load factors and mode shapes");
+  add_common(buckle, o, true, true);
+  buckle->add_option("-n,--modes", o.modes, "number of lowest positive load factors");
+  CLI::App* demo = cli.add_subcommand("demo", "run the bundled demo case end to end");
+  add_common(demo, o, false, true);
+  try {
+    cli.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    const int code = cli.exit(e);
+    return code == 0 ? kExitOk : kExitBadInput;
+  }
+  // 2. Logging.
+  setup_console_logging(o.quiet);
+  // 3. The command; 4. failures to exit codes.
+  try {
+    if (*run) return command_run(o);
+    if (*check) return command_check(o);
+    if (*buckle) return command_buckle(o);
+    if (*demo) return command_demo(o);
+  } catch (const rotcap::InputError& e) {
+    std::cerr << "rotcap: error: " << e.what() << "\n";
+    return kExitBadInput;
+  } catch (const rotcap::OutputError& e) {
+    std::cerr << "rotcap: cannot write output: " << e.what() << "\n";
+    return kExitInternal;
+  } catch (const std::invalid_argument& e) {
+    std::cerr << "rotcap: error: " << o.case_file.string() << ": " << e.what() << "\n";
+    return kExitBadInput;
+  } catch (const std::exception& e) {
+    std::cerr << "rotcap: internal error: " << e.what() << "\n";
+    return kExitInternal;
+  }
+  return kExitInternal;
+}

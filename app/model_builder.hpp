@@ -1,0 +1,22 @@
+#pragma once
+// build_case: the case file read, validated and turned into the ShellModel to analyse, with the
+// lines `rotcap check` prints about it. General models come from their mesh file; generated models
+// from the hinge-zone generator.
+#include "io/case_input.hpp"
+#include "model/shell_model.hpp"
+
+#include <filesystem>
+#include <string>
+#include <vector>
+
+namespace rotcap::app {
+
+struct BuiltCase {
+  CaseInput input;
+  ShellModel model;
+  std::vector<std::string> description;  ///< derived data for `check` and the log
+};
+
+BuiltCase build_case(const std::filesystem::path& case_file);
+
+}  // namespace rotcap::app

@@ -1,0 +1,46 @@
+#include "app/run_recorder.hpp"
+
+#include "io/input_error.hpp"
+
+#include <algorithm>
+#include <cstdio>
+#include <fstream>
+
+namespace rotcap::app {
+
+namespace fs = std::filesystem;
+
+RunRecorder::RunRecorder(fs::path folder, std::vector<std::string> columns, int fields_every)
+    : folder_(std::move(folder)),
+      csv_(folder_ / "curve.csv", std::move(columns)),
+      pvd_(folder_ / "fields.pvd"),
+      fields_every_(std::max(1, fields_every)) {
+  fs::create_directories(folder_ / "fields");
+}
+
+bool RunRecorder::has_fields(int step) const {
+  return std::find(written_.begin(), written_.end(), step) != written_.end();
+}
+
+void RunRecorder::write_fields(int step, double time, const ShellModel& model, const Eigen::VectorXd& u,
+                               const ElementResults& results) {
+  if (has_fields(step)) return;
+  char name[32];
+  std::snprintf(name, sizeof name, "step_%04d.vtu", step);
+  write_shell_fields(folder_ / "fields" / name, model, u, results);
+  pvd_.add(time, fs::path("fields") / name);
+  written_.push_back(step);
+}
+
+void RunRecorder::write_summary(const nlohmann::json& summary) const {
+  const fs::path file = folder_ / "summary.json";
+  const fs::path tmp = folder_ / "summary.json.tmp";
+  {
+    std::ofstream out(tmp);
+    if (!out) throw OutputError(tmp, "cannot write");
+    out << summary.dump(2) << "\n";
+  }
+  fs::rename(tmp, file);
+}
+
+}  // namespace rotcap::app

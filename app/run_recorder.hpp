@@ -1,0 +1,39 @@
+#pragma once
+// RunRecorder: what a run leaves on disk, written as the run goes so that a run that stops early
+// keeps every converged step: curve.csv (one row per converged step, flushed), fields/step_NNNN.vtu
+// with fields.pvd rewritten after each, and summary.json rewritten at the end (and on failure).
+#include "app/field_export.hpp"
+#include "io/curve_csv.hpp"
+#include "io/pvd_collection.hpp"
+
+#include <nlohmann/json.hpp>
+
+#include <filesystem>
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace rotcap::app {
+
+class RunRecorder {
+ public:
+  RunRecorder(std::filesystem::path folder, std::vector<std::string> columns, int fields_every);
+  void add_row(const std::vector<double>& row) { csv_.write_row(row); }
+  /// Fields are due on step 0, every fields_every-th step, and whenever forced (peak, end).
+  bool fields_due(int step) const { return step % fields_every_ == 0; }
+  /// Writes fields/step_NNNN.vtu (once per step) and adds it to fields.pvd at time `time`.
+  void write_fields(int step, double time, const ShellModel& model, const Eigen::VectorXd& u,
+                    const ElementResults& results);
+  bool has_fields(int step) const;
+  void write_summary(const nlohmann::json& summary) const;
+  const std::filesystem::path& folder() const { return folder_; }
+
+ private:
+  std::filesystem::path folder_;
+  CurveCsv csv_;
+  PvdCollection pvd_;
+  int fields_every_;
+  std::vector<int> written_;
+};
+
+}  // namespace rotcap::app
