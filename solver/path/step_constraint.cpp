@@ -37,7 +37,7 @@ double ArcLength::predict(const Eigen::VectorXd& du_f, double size,
 
 bool ArcLength::correct(const Eigen::VectorXd& du_r, const Eigen::VectorXd& du_f, const Eigen::VectorXd& Du,
                         double size, double& dlambda) const {
-  if (form_ == ArcLengthForm::NormalPlane) {
+  if (form_ == Form::NormalPlane) {
     // Updated normal plane (Ramm 1981): the correction is orthogonal to the current increment,
     // Du . (du_r + dlambda du_f) = 0.
     const double df = dot(Du, du_f);

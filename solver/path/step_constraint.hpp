@@ -61,12 +61,11 @@ class DisplacementControl final : public StepConstraint {
   Eigen::VectorXd c_;
 };
 
-enum class ArcLengthForm { Cylindrical, NormalPlane };
-
 class ArcLength final : public StepConstraint {
  public:
+  enum class Form { Cylindrical, NormalPlane };
   /// weights: 1 for the DOFs in the arc-length norm (translations), 0 for the others.
-  ArcLength(Eigen::VectorXd weights, ArcLengthForm form) : w_(std::move(weights)), form_(form) {}
+  ArcLength(Eigen::VectorXd weights, Form form) : w_(std::move(weights)), form_(form) {}
   double measure_of(const Eigen::VectorXd& du_f) const override { return norm(du_f); }
   double predict(const Eigen::VectorXd& du_f, double size,
                  const Eigen::VectorXd& previous_increment) const override;
@@ -78,7 +77,7 @@ class ArcLength final : public StepConstraint {
   double dot(const Eigen::VectorXd& a, const Eigen::VectorXd& b) const { return (a.array() * w_.array() * b.array()).sum(); }
   double norm(const Eigen::VectorXd& a) const;
   Eigen::VectorXd w_;
-  ArcLengthForm form_;
+  Form form_;
 };
 
 }  // namespace rotcap

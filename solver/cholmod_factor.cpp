@@ -1,0 +1,196 @@
+#include "solver/cholmod_factor.hpp"
+
+#include <cholmod.h>
+#include <spdlog/spdlog.h>
+
+#include <chrono>
+#include <cmath>
+#include <cstring>
+#include <stdexcept>
+
+namespace rotcap {
+
+const char* factor_status_name(FactorStatus status) {
+  switch (status) {
+    case FactorStatus::Ok: return "Ok";
+    case FactorStatus::NotFactorized: return "NotFactorized";
+    case FactorStatus::NotPositiveDefinite: return "NotPositiveDefinite";
+    case FactorStatus::ZeroPivot: return "ZeroPivot";
+    case FactorStatus::OutOfMemory: return "OutOfMemory";
+    case FactorStatus::Failed: return "Failed";
+  }
+  return "Unknown";
+}
+
+struct CholmodFactor::Impl {
+  cholmod_common common;
+  cholmod_factor* factor = nullptr;
+  cholmod_dense* x = nullptr;  // cholmod_solve2 workspace, reused across solves
+  cholmod_dense* y = nullptr;
+  cholmod_dense* e = nullptr;
+
+  Impl() { cholmod_start(&common); }
+  ~Impl() {
+    cholmod_free_dense(&x, &common);
+    cholmod_free_dense(&y, &common);
+    cholmod_free_dense(&e, &common);
+    cholmod_free_factor(&factor, &common);
+    cholmod_finish(&common);
+  }
+
+  // A header over the pattern's arrays (no copy); CHOLMOD only reads it.
+  static cholmod_sparse view(const SparsePattern& p, const double* values) {
+    cholmod_sparse a;
+    std::memset(&a, 0, sizeof a);
+    a.nrow = a.ncol = static_cast<size_t>(p.size());
+    a.nzmax = static_cast<size_t>(p.nonzeros());
+    a.p = const_cast<int*>(p.column_starts().data());
+    a.i = const_cast<int*>(p.row_indices().data());
+    a.x = const_cast<double*>(values);
+    a.stype = 1;  // symmetric, upper triangle stored
+    a.itype = CHOLMOD_INT;
+    a.xtype = values ? CHOLMOD_REAL : CHOLMOD_PATTERN;
+    a.dtype = CHOLMOD_DOUBLE;
+    a.sorted = 1;
+    a.packed = 1;
+    return a;
+  }
+};
+
+CholmodFactor::CholmodFactor(const SparsePattern& pattern, const Options& options)
+    : pattern_(pattern), options_(options), impl_(std::make_unique<Impl>()) {
+  cholmod_common& c = impl_->common;
+  c.print = 0;  // outcomes are reported through status(), not printed
+  c.supernodal = options.method == Method::SupernodalLLT ? CHOLMOD_SUPERNODAL : CHOLMOD_SIMPLICIAL;
+  c.final_ll = 0;  // simplicial: keep LDL^T (its D gives the inertia)
+  // An LL^T attempt on an indefinite matrix is only a definiteness test: stop at the first bad
+  // supernode instead of finishing the factorisation.
+  c.quick_return_if_not_posdef = 1;
+  if (options.ordering == Ordering::Amd) {
+    c.nmethods = 1;
+    c.method[0].ordering = CHOLMOD_AMD;
+  } else if (options.ordering == Ordering::NestedDissection) {
+    c.nmethods = 1;
+    c.method[0].ordering = CHOLMOD_NESDIS;
+  }
+
+  const auto start = std::chrono::steady_clock::now();
+  cholmod_sparse a = Impl::view(pattern, nullptr);
+  impl_->factor = cholmod_analyze(&a, &c);
+  analysis_seconds_ = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+  if (!impl_->factor)
+    throw std::runtime_error("CholmodFactor: symbolic analysis failed (CHOLMOD status " +
+                             std::to_string(c.status) + ") for n = " + std::to_string(pattern.size()));
+  ++analyses_;
+  factor_nonzeros_ = c.lnz;
+  factor_flops_ = c.fl;
+  spdlog::debug("CholmodFactor: analysed n = {}, nnz(A upper) = {}, nnz(L) = {:.4g}, flops = {:.4g}, {:.3f} s",
+                pattern.size(), pattern.nonzeros(), factor_nonzeros_, factor_flops_, analysis_seconds_);
+}
+
+CholmodFactor::CholmodFactor(const SparsePattern& pattern, Method method)
+    : CholmodFactor(pattern, Options{method, Ordering::Automatic}) {}
+
+CholmodFactor::~CholmodFactor() = default;
+
+FactorStatus CholmodFactor::factorize(std::span<const double> values) {
+  if (values.size() != static_cast<std::size_t>(pattern_.nonzeros()))
+    throw std::invalid_argument("CholmodFactor::factorize: " + std::to_string(values.size()) +
+                                " values; the pattern has " + std::to_string(pattern_.nonzeros()));
+  cholmod_common& c = impl_->common;
+  const auto start = std::chrono::steady_clock::now();
+  cholmod_sparse a = Impl::view(pattern_, values.data());
+  cholmod_factorize(&a, impl_->factor, &c);
+  factorization_seconds_ = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+  ++factorizations_;
+
+  const cholmod_factor* l = impl_->factor;
+  const int n = pattern_.size();
+  negative_pivots_ = -1;
+  min_pivot_ratio_ = std::numeric_limits<double>::quiet_NaN();
+  min_pivot_equation_ = -1;
+  if (c.status == CHOLMOD_OUT_OF_MEMORY) {
+    status_ = FactorStatus::OutOfMemory;
+    message_ = "out of memory in the numeric factorisation (n = " + std::to_string(n) + ")";
+  } else if (c.status < CHOLMOD_OK) {
+    status_ = FactorStatus::Failed;
+    message_ = "CHOLMOD error status " + std::to_string(c.status);
+  } else if (c.status == CHOLMOD_NOT_POSDEF || static_cast<int>(l->minor) < n) {
+    // LL^T: a non-positive pivot; LDL^T (no pivoting): an exactly zero or NaN pivot.
+    const bool ll = options_.method == Method::SupernodalLLT;
+    status_ = ll ? FactorStatus::NotPositiveDefinite : FactorStatus::ZeroPivot;
+    message_ = std::string(ll ? "not positive definite" : "zero pivot") + " at column " +
+               std::to_string(l->minor) + " of " + std::to_string(n) + " (permuted order)";
+  } else {
+    status_ = FactorStatus::Ok;
+    // Pivots d_j in the permuted order, from CHOLMOD's factor layout.
+    const int* perm = static_cast<const int*>(l->Perm);
+    const double* lx = static_cast<const double*>(l->x);
+    int negative = 0;
+    min_pivot_ratio_ = std::numeric_limits<double>::infinity();
+    auto visit = [&](int j, double d) {
+      negative += d < 0.0 ? 1 : 0;
+      const int q = perm ? perm[j] : j;
+      const double a = values[pattern_.column_starts()[q + 1] - 1];  // diagonal: last in its column
+      if (a == 0.0) return;  // no scale for this pivot (possible in an indefinite matrix)
+      const double ratio = d / std::abs(a);
+      if (ratio < min_pivot_ratio_) {
+        min_pivot_ratio_ = ratio;
+        min_pivot_equation_ = q;
+      }
+    };
+    if (l->is_super) {
+      // Supernode s holds columns super[s] .. super[s+1]-1 as a dense column-major block of
+      // pi[s+1] - pi[s] rows starting at px[s]; l_jj is on the block's diagonal.
+      const int* super = static_cast<const int*>(l->super);
+      const int* pi = static_cast<const int*>(l->pi);
+      const int* px = static_cast<const int*>(l->px);
+      for (std::size_t s = 0; s < l->nsuper; ++s) {
+        const int rows = pi[s + 1] - pi[s];
+        for (int j = super[s]; j < super[s + 1]; ++j) {
+          const double ljj = lx[px[s] + (j - super[s]) * (rows + 1)];
+          visit(j, ljj * ljj);
+        }
+      }
+    } else {
+      // Simplicial LDL^T: d_jj is the first stored entry of column j of L.
+      const int* lp = static_cast<const int*>(l->p);
+      for (int j = 0; j < n; ++j) visit(j, lx[lp[j]]);
+    }
+    negative_pivots_ = negative;
+    message_ = fmt::format("factorised n = {}, negative pivots {}, min pivot ratio {:.3g} at equation {}", n,
+                           negative_pivots_, min_pivot_ratio_, min_pivot_equation_);
+  }
+  spdlog::debug("CholmodFactor: {} ({:.3f} s)", message_, factorization_seconds_);
+  return status_;
+}
+
+void CholmodFactor::solve(const double* b, double* x) {
+  if (status_ != FactorStatus::Ok)
+    throw std::logic_error(std::string("CholmodFactor::solve: factor status is ") +
+                           factor_status_name(status_) + "; need Ok");
+  cholmod_common& c = impl_->common;
+  const int n = pattern_.size();
+  cholmod_dense rhs;
+  std::memset(&rhs, 0, sizeof rhs);
+  rhs.nrow = static_cast<size_t>(n);
+  rhs.ncol = 1;
+  rhs.nzmax = rhs.d = static_cast<size_t>(n);
+  rhs.x = const_cast<double*>(b);
+  rhs.xtype = CHOLMOD_REAL;
+  rhs.dtype = CHOLMOD_DOUBLE;
+  if (!cholmod_solve2(CHOLMOD_A, impl_->factor, &rhs, nullptr, &impl_->x, nullptr, &impl_->y, &impl_->e, &c))
+    throw std::runtime_error("CholmodFactor::solve: CHOLMOD status " + std::to_string(c.status));
+  std::memcpy(x, impl_->x->x, sizeof(double) * static_cast<std::size_t>(n));
+}
+
+Eigen::VectorXd CholmodFactor::solve(const Eigen::VectorXd& b) {
+  if (b.size() != pattern_.size())
+    throw std::invalid_argument("CholmodFactor::solve: b has " + std::to_string(b.size()) +
+                                " entries; need " + std::to_string(pattern_.size()));
+  Eigen::VectorXd x(b.size());
+  solve(b.data(), x.data());
+  return x;
+}
+
+}  // namespace rotcap
