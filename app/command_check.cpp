@@ -4,7 +4,7 @@
 #include "app/model_builder.hpp"
 #include "solver/cholmod_factor.hpp"
 #include "solver/dof_map.hpp"
-#include "solver/nonlinear/rigid_ties.hpp"
+#include "solver/rigid_ties.hpp"
 #include "solver/sparse_pattern.hpp"
 
 #include <cstdio>

@@ -169,7 +169,7 @@ BucklingResult solve_linear_buckling(const ShellModel& model, const SectionAssig
     for (Eigen::Index i = 0; i < mu.size(); ++i) {
       if (!(mu[i] > 0.0)) continue;  // lambda <= 0 or infinite: not a buckling load of this load
       result.load_factors.push_back(1.0 / mu[i]);
-      result.modes.push_back(system.dofs().scatter_homogeneous(phi.col(i)));
+      result.modes.push_back(system.full_vector(phi.col(i)));
       normalise_mode(result.modes.back());
     }
   }

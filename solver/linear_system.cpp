@@ -23,8 +23,11 @@ void LinearSystemOptions::validate() const {
 
 LinearShellSystem::LinearShellSystem(const ShellModel& model, const SectionAssignment& sections,
                                      const LinearSystemOptions& options)
-    : model_(model), options_(options), dofs_((options.validate(), validate_topology(model), model)) {
-  const std::vector<ElementNodes> nodes = element_nodes(model);
+    : model_(model),
+      options_(options),
+      ties_((options.validate(), validate_topology(model), model)),
+      dofs_(model.node_count(), ties_.held_dofs(model)) {
+  const std::vector<ElementNodes> nodes = ties_.effective_nodes(model);
   pattern_ = std::make_unique<SparsePattern>(nodes, dofs_);
   assembler_ = std::make_unique<Assembler>(*pattern_, nodes);
   elements_ = std::make_unique<ShellElementSet>(model, sections, options.element);
@@ -36,7 +39,7 @@ LinearShellSystem::LinearShellSystem(const ShellModel& model, const SectionAssig
 AssemblySummary LinearShellSystem::assemble_stiffness() {
   const Eigen::VectorXd zero = Eigen::VectorXd::Zero(model_.dof_count());
   const AssemblySummary s =
-      assembler_->assemble(elements_->internal_force_kernel(zero), &k_, nullptr, {options_.threads});
+      assembler_->assemble(tied(elements_->internal_force_kernel(zero)), &k_, nullptr, {options_.threads});
   assembly_seconds_ = s.seconds;
   assembled_ = s.ok;
   return s;
@@ -59,7 +62,8 @@ Eigen::VectorXd LinearShellSystem::solve(const Eigen::VectorXd& f_full) {
   if (!factor_ || factor_->status() != FactorStatus::Ok)
     throw std::logic_error("LinearShellSystem::solve: K is not factorised");
   const auto start = std::chrono::steady_clock::now();
-  const Eigen::VectorXd u = dofs_.scatter(factor_->solve(dofs_.gather(f_full)));
+  Eigen::VectorXd u = dofs_.scatter(factor_->solve(dofs_.gather(f_full)));
+  ties_.complete_linear(model_.nodes, u);
   solve_seconds_ = seconds_since(start);
   return u;
 }
@@ -67,13 +71,33 @@ Eigen::VectorXd LinearShellSystem::solve(const Eigen::VectorXd& f_full) {
 LinearShellSystem::Recovery LinearShellSystem::recover(const Eigen::VectorXd& u_full) const {
   Recovery r;
   r.resultants.resize(static_cast<std::size_t>(elements_->size()));
-  r.summary = assembler_->assemble(elements_->internal_force_kernel(u_full, &r.resultants), nullptr,
+  r.summary = assembler_->assemble(tied(elements_->internal_force_kernel(u_full, &r.resultants)), nullptr,
                                    &r.internal_forces, {options_.threads});
   return r;
 }
 
 AssemblySummary LinearShellSystem::assemble_matrix(const ElementKernel& kernel, std::vector<double>& values) const {
-  return assembler_->assemble(kernel, &values, nullptr, {options_.threads});
+  return assembler_->assemble(tied(kernel), &values, nullptr, {options_.threads});
+}
+
+Eigen::VectorXd LinearShellSystem::full_vector(const Eigen::VectorXd& x_free) const {
+  Eigen::VectorXd u = dofs_.scatter_homogeneous(x_free);
+  ties_.complete_linear(model_.nodes, u);
+  return u;
+}
+
+ElementKernel LinearShellSystem::tied(ElementKernel kernel) const {
+  if (ties_.tied_elements().empty()) return kernel;
+  return [this, kernel = std::move(kernel)](int e, Mat24* K, Vec24* f) {
+    Vec24 local_f;
+    const ElementStatus status = kernel(e, K, f ? f : &local_f);
+    if (status != ElementStatus::Ok) return status;
+    const auto& nodes = model_.elements[e].nodes;
+    Eigen::Matrix<double, 3, 4> X;
+    for (int a = 0; a < 4; ++a) X.col(a) = model_.nodes[nodes[a]];
+    ties_.to_masters(e, nodes, X, [this](int m) { return model_.nodes[m]; }, K, f ? *f : local_f);
+    return status;
+  };
 }
 
 }  // namespace rotcap

@@ -10,11 +10,13 @@
 //   solve(f_full)         - u = K^{-1} f on the free DOFs, returned as a full vector
 //   recover(u)            - element resultants and internal forces f_int (full, held DOFs
 //                           included) at u; reactions = f_int - f_ext at the held DOFs
+// Rigid sections (ShellModel::rigid_ties) are eliminated as in rigid_ties.hpp, linearised.
 // Not copyable or movable (the assembler and factor refer to the pattern it owns).
 
 #include "solver/assembler.hpp"
 #include "solver/cholmod_factor.hpp"
 #include "solver/dof_map.hpp"
+#include "solver/rigid_ties.hpp"
 #include "solver/shell_element_set.hpp"
 #include "solver/sparse_pattern.hpp"
 
@@ -60,7 +62,11 @@ class LinearShellSystem {
   };
   Recovery recover(const Eigen::VectorXd& u_full) const;
 
-  /// Assembles a kernel's matrix onto the system's pattern (e.g. the geometric stiffness).
+  /// Full vector (6 per node) of a free-DOF vector, held DOFs zero, tied nodes following their
+  /// masters (for increments and mode shapes).
+  Eigen::VectorXd full_vector(const Eigen::VectorXd& x_free) const;
+  /// Assembles a kernel's matrix onto the system's pattern (e.g. the geometric stiffness); tied
+  /// elements are mapped to their masters here, like every kernel of the system.
   AssemblySummary assemble_matrix(const ElementKernel& kernel, std::vector<double>& values) const;
 
   const ShellModel& model() const { return model_; }
@@ -79,7 +85,9 @@ class LinearShellSystem {
  private:
   const ShellModel& model_;
   LinearSystemOptions options_;
+  RigidTieSet ties_;
   DofMap dofs_;
+  ElementKernel tied(ElementKernel kernel) const;
   std::unique_ptr<SparsePattern> pattern_;
   std::unique_ptr<Assembler> assembler_;
   std::unique_ptr<ShellElementSet> elements_;

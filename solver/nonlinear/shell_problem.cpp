@@ -66,11 +66,6 @@ void ShellProblem::gather(int e, NodalCoordinates& x, NodalRotations& R) const {
 
 ElementKernel ShellProblem::kernel(std::vector<ShellQ4Resultants>* out) const {
   return [this, out](int e, Mat24* K, Vec24* f) {
-    if (ties_.is_tied_element(e)) {  // added by add_tied_elements()
-      if (K) K->setZero();
-      if (f) f->setZero();
-      return ElementStatus::Ok;
-    }
     NodalCoordinates x;
     NodalRotations R;
     gather(e, x, R);
@@ -81,6 +76,9 @@ ElementKernel ShellProblem::kernel(std::vector<ShellQ4Resultants>* out) const {
         x, R, sections_.of(e), std::span<const LayerState>(history_committed_.data() + begin, count),
         std::span<LayerState>(history_trial_.data() + begin, count), fe, K,
         out ? &(*out)[e] : nullptr);
+    if (status == ElementStatus::Ok)
+      ties_.to_masters(e, model_.elements[e].nodes, x, [this](int m) { return Eigen::Vector3d(model_.nodes[m] + u_[m]); },
+                       K, fe);
     if (f) *f = fe;
     return status;
   };
@@ -94,7 +92,6 @@ EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool fa
     message_ = a.message;
     return EvaluationStatus::ElementFailed;
   }
-  if (!add_tied_elements(factorise_tangent)) return EvaluationStatus::ElementFailed;
   assembly_seconds_ += seconds_since(t0);
   internal_force = dofs_.gather(f_full_);
   if (!internal_force.allFinite()) {
@@ -124,28 +121,6 @@ EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool fa
     return EvaluationStatus::FactorisationFailed;
   }
   return EvaluationStatus::Ok;
-}
-
-bool ShellProblem::add_tied_elements(bool with_tangent) {
-  for (int e : ties_.tied_elements()) {
-    NodalCoordinates x;
-    NodalRotations R;
-    gather(e, x, R);
-    const std::size_t begin = history_offset_[e];
-    const std::size_t count = history_offset_[e + 1] - begin;
-    Vec24 f;
-    Mat24 K;
-    const ElementStatus status = elements_[e].compute(
-        x, R, sections_.of(e), std::span<const LayerState>(history_committed_.data() + begin, count),
-        std::span<LayerState>(history_trial_.data() + begin, count), f, with_tangent ? &K : nullptr);
-    if (status != ElementStatus::Ok) {
-      message_ = "element " + std::to_string(e) + " failed: " + element_status_name(status);
-      return false;
-    }
-    ties_.add_element(model_.elements[e].nodes, x, with_tangent ? &K : nullptr, f, model_.nodes, u_, dofs_,
-                      *pattern_, with_tangent ? &values_ : nullptr, f_full_);
-  }
-  return true;
 }
 
 void ShellProblem::solve(const Eigen::VectorXd& rhs, Eigen::VectorXd& x) {

@@ -21,8 +21,8 @@
 #include "solver/assembler.hpp"
 #include "solver/cholmod_factor.hpp"
 #include "solver/dof_map.hpp"
-#include "solver/nonlinear/rigid_ties.hpp"
 #include "solver/path/equilibrium_problem.hpp"
+#include "solver/rigid_ties.hpp"
 #include "solver/section_assignment.hpp"
 #include "solver/sparse_pattern.hpp"
 
@@ -87,8 +87,6 @@ class ShellProblem final : public EquilibriumProblem {
 
  private:
   ElementKernel kernel(std::vector<ShellQ4Resultants>* out) const;
-  /// Elements with tied nodes, evaluated and added serially (see rigid_ties.hpp).
-  bool add_tied_elements(bool with_tangent);
   void gather(int e, NodalCoordinates& x, NodalRotations& R) const;
 
   const ShellModel& model_;

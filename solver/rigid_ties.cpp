@@ -1,4 +1,4 @@
-#include "solver/nonlinear/rigid_ties.hpp"
+#include "solver/rigid_ties.hpp"
 
 #include <Eigen/Geometry>
 #include <stdexcept>
@@ -75,42 +75,31 @@ void RigidTieSet::place_slaves(const std::vector<Eigen::Vector3d>& X, std::vecto
   }
 }
 
-void RigidTieSet::add_element(const ElementNodes& nodes, const Eigen::Matrix<double, 3, 4>& x, const Mat24* K,
-                              const Vec24& f, const std::vector<Eigen::Vector3d>& X,
-                              const std::vector<Eigen::Vector3d>& u, const DofMap& dofs,
-                              const SparsePattern& pattern, std::vector<double>* values,
-                              Eigen::VectorXd& f_full) const {
-  // T maps master increments to the element's DOFs, block by node (identity for untied nodes).
+void RigidTieSet::complete_linear(const std::vector<Eigen::Vector3d>& X, Eigen::VectorXd& u) const {
+  for (std::size_t s = 0; s < master_.size(); ++s) {
+    const int m = master_[s];
+    if (m == static_cast<int>(s)) continue;
+    const Eigen::Vector3d theta = u.segment<3>(kDofsPerNode * m + 3);
+    u.segment<3>(kDofsPerNode * s) = u.segment<3>(kDofsPerNode * m) + theta.cross(X[s] - X[m]);
+    u.segment<3>(kDofsPerNode * s + 3) = theta;
+  }
+}
+
+void RigidTieSet::transform(const std::array<int, 4>& nodes, const std::array<Eigen::Vector3d, 4>& r, Mat24* K,
+                            Vec24& f) const {
+  // T maps the effective nodes' increments to the element's DOFs, block by node (identity for
+  // untied nodes); K_r is the tie's second variation on the masters' spins.
   Mat24 T = Mat24::Identity();
   Mat24 Kr = Mat24::Zero();
-  std::array<int, 24> eq;
   for (int a = 0; a < 4; ++a) {
-    const int node = nodes[a];
-    const int m = master_[node];
-    for (int d = 0; d < kDofsPerNode; ++d) eq[kDofsPerNode * a + d] = dofs.equation(m, static_cast<Dof>(d));
-    if (m == node) continue;
-    const Eigen::Vector3d r = x.col(a) - (X[m] + u[m]);
-    T.block<3, 3>(6 * a, 6 * a + 3) = -skew(r);
+    if (!is_slave(nodes[a])) continue;
+    T.block<3, 3>(6 * a, 6 * a + 3) = -skew(r[a]);
     const Eigen::Vector3d fs = f.segment<3>(6 * a);
-    const Eigen::Matrix3d rf = r * fs.transpose();
-    Kr.block<3, 3>(6 * a + 3, 6 * a + 3) = 0.5 * (rf + rf.transpose()) - fs.dot(r) * Eigen::Matrix3d::Identity();
+    const Eigen::Matrix3d rf = r[a] * fs.transpose();
+    Kr.block<3, 3>(6 * a + 3, 6 * a + 3) = 0.5 * (rf + rf.transpose()) - fs.dot(r[a]) * Eigen::Matrix3d::Identity();
   }
-  const Vec24 fm = T.transpose() * f;
-  for (int a = 0; a < 4; ++a) {
-    const int m = master_[nodes[a]];
-    f_full.segment<6>(kDofsPerNode * m) += fm.segment<6>(6 * a);
-  }
-  if (!values || !K) return;
-  Mat24 Km = T.transpose() * (0.5 * (*K + K->transpose())) * T + Kr;
-  // Upper-triangle storage: entry (p, q), p <= q, collects every K_ij with eq_i = p, eq_j = q.
-  for (int j = 0; j < 24; ++j) {
-    if (eq[j] < 0) continue;
-    for (int i = 0; i < 24; ++i) {
-      if (eq[i] < 0 || eq[i] > eq[j]) continue;
-      const int at = pattern.find(eq[i], eq[j]);
-      if (at >= 0) (*values)[at] += Km(i, j);
-    }
-  }
+  if (K) *K = T.transpose() * (*K) * T + Kr;
+  f = T.transpose() * f;
 }
 
 }  // namespace rotcap

@@ -7,12 +7,12 @@
 // so an element's global force and tangent map to the master's DOFs with T_s = [I, -skew(r); 0, I]:
 //   f_m = T^T f,  K_m = T^T K T + K_r,  K_r = sym(r f_s^T) - (f_s . r) I  on the master's spins
 // (the second variation of x_s; f_s the element's force on the slave's translations).
-// Elements with a tied node are assembled here, serially, because several of their nodes may map
-// onto one master (the pattern's pair scatter assumes distinct nodes).
+// The transformed element is assembled on its effective node list (tied nodes replaced by their
+// masters); the Assembler sums repeated nodes correctly. Linear analyses use the same transform
+// at the initial geometry (r = X_s - X_m; K_r vanishes with the force at the unloaded state).
 
 #include "elements/shell_q4.hpp"
 #include "model/shell_model.hpp"
-#include "solver/dof_map.hpp"
 #include "solver/sparse_pattern.hpp"
 
 #include <Eigen/Core>
@@ -40,18 +40,27 @@ class RigidTieSet {
   /// Moves every tied node onto its master's rigid motion (u: translations, R: rotations).
   void place_slaves(const std::vector<Eigen::Vector3d>& X, std::vector<Eigen::Vector3d>& u,
                     std::vector<Eigen::Matrix3d>& R) const;
+  /// Linearised: fills the tied nodes' entries of a full small-displacement vector from their
+  /// masters, u_s = u_m + theta_m x (X_s - X_m), theta_s = theta_m.
+  void complete_linear(const std::vector<Eigen::Vector3d>& X, Eigen::VectorXd& u_full) const;
 
-  /// Adds the element's global K (symmetric part) and f, taken at the current coordinates x of its
-  /// four nodes, mapped to the masters' DOFs, into the pattern values (may be null) and the full
-  /// force vector.
-  /// X, u: initial coordinates and current translations of all nodes (for the masters' positions).
-  void add_element(const ElementNodes& nodes, const Eigen::Matrix<double, 3, 4>& x, const Mat24* K,
-                   const Vec24& f, const std::vector<Eigen::Vector3d>& X,
-                   const std::vector<Eigen::Vector3d>& u, const DofMap& dofs,
-                   const SparsePattern& pattern, std::vector<double>* values,
-                   Eigen::VectorXd& f_full) const;
+  /// Maps element e's global force f and (if K) tangent, taken at the current coordinates x of
+  /// its nodes (its original node list), onto the DOFs of its effective nodes; x_of(node) gives a
+  /// node's current coordinates (for the masters). A no-op for an element without tied nodes.
+  template <class Position>
+  void to_masters(int e, const std::array<int, 4>& nodes, const Eigen::Matrix<double, 3, 4>& x,
+                  const Position& x_of, Mat24* K, Vec24& f) const {
+    if (!tied_flag_[e]) return;
+    std::array<Eigen::Vector3d, 4> r;
+    for (int a = 0; a < 4; ++a)
+      r[a] = is_slave(nodes[a]) ? Eigen::Vector3d(x.col(a) - x_of(master_[nodes[a]])) : Eigen::Vector3d::Zero();
+    transform(nodes, r, K, f);
+  }
 
  private:
+  void transform(const std::array<int, 4>& nodes, const std::array<Eigen::Vector3d, 4>& r, Mat24* K,
+                 Vec24& f) const;
+
   std::vector<int> master_;
   std::vector<int> tied_elements_;
   std::vector<char> tied_flag_;
