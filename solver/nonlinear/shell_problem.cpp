@@ -56,6 +56,19 @@ ShellProblem::~ShellProblem() = default;
 void ShellProblem::set_reference_load(const Eigen::VectorXd& full) { f_ref_ = dofs_.gather(full); }
 void ShellProblem::set_fixed_load(const Eigen::VectorXd& full) { f_fixed_ = dofs_.gather(full); }
 
+void ShellProblem::set_initial_stress(
+    const std::function<Eigen::Vector3d(int element, int gauss_point, int layer)>& stress) {
+  for (int e = 0; e < model_.element_count(); ++e) {
+    const int layers = sections_.of(e).layers();
+    for (int gp = 0; gp < ShellQ4::kGaussPoints; ++gp)
+      for (int k = 0; k < layers; ++k) {
+        const std::size_t i = history_offset_[e] + static_cast<std::size_t>(gp * layers + k);
+        history_committed_[i].initial_stress = stress(e, gp, k);
+        history_trial_[i].initial_stress = history_committed_[i].initial_stress;
+      }
+  }
+}
+
 void ShellProblem::gather(int e, NodalCoordinates& x, NodalRotations& R) const {
   const auto& nodes = model_.elements[e].nodes;
   for (int a = 0; a < 4; ++a) {

@@ -26,6 +26,7 @@
 #include "solver/section_assignment.hpp"
 #include "solver/sparse_pattern.hpp"
 
+#include <functional>
 #include <memory>
 #include <string>
 #include <vector>
@@ -67,6 +68,11 @@ class ShellProblem final : public EquilibriumProblem {
   /// Full-size (6 per node) load vectors replace the reference / fixed load (free entries used).
   void set_reference_load(const Eigen::VectorXd& full);
   void set_fixed_load(const Eigen::VectorXd& full);
+
+  /// Sets LayerState::initial_stress [MPa, local element axes] of every layer point of the committed
+  /// and trial history from stress(element, gauss_point, layer) (residual stresses). Elements with a
+  /// stateless section are skipped. Call before the analysis, then equilibrate (see equilibrate.hpp).
+  void set_initial_stress(const std::function<Eigen::Vector3d(int element, int gauss_point, int layer)>& stress);
 
   const DofMap& dofs() const { return dofs_; }
   /// Committed nodal displacements, full vector: translations, and rotations as rotation vectors
