@@ -39,6 +39,12 @@ int command_buckle(const CommandOptions& options) {
                                     {"modes_below_shift", result.sturm.modes_below_shift},
                                     {"negative_pivots", result.sturm.negative_pivots},
                                     {"passed", result.sturm.passed()}}}};
+  if (built.hinge) {
+    std::vector<double> mcr;
+    for (double l : result.load_factors) mcr.push_back(l * built.hinge->zone.moment_per_load_factor / 1e6);
+    j["critical_moments_kNm"] = mcr;
+    j["mp_kNm"] = built.hinge->zone.plastic_moment / 1e6;
+  }
   std::filesystem::create_directories(folder / "modes");
   PvdCollection pvd(folder / "modes.pvd");
   for (std::size_t k = 0; k < result.modes.size(); ++k) {
@@ -52,9 +58,15 @@ int command_buckle(const CommandOptions& options) {
     out << j.dump(2) << "\n";
   }
   for (std::size_t k = 0; k < result.load_factors.size(); ++k) {
-    char line[96];
+    char line[128];
     std::snprintf(line, sizeof line, "mode %2zu: load factor %.6g", k + 1, result.load_factors[k]);
-    log_info(line);
+    std::string text = line;
+    if (built.hinge) {
+      std::snprintf(line, sizeof line, "  (critical hinge moment %.4g kNm = %.4g Mp)",
+                    result.load_factors[k] * built.hinge->zone.moment_per_load_factor / 1e6, result.load_factors[k]);
+      text += line;
+    }
+    log_info(text);
   }
   if (result.sturm.done)
     log_info("Sturm check: " + std::to_string(result.sturm.negative_pivots) + " eigenvalues below " +

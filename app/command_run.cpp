@@ -1,8 +1,10 @@
 // rotcap run CASE.toml: the full analysis of a case, results into the output folder.
 #include "app/commands.hpp"
 #include "app/general_analysis.hpp"
+#include "app/hinge_analysis.hpp"
 #include "app/logging.hpp"
 #include "app/model_builder.hpp"
+#include "io/input_error.hpp"
 #include "app/output_folder.hpp"
 
 namespace rotcap::app {
@@ -14,6 +16,9 @@ const char* const kCaution =
 int command_run(const CommandOptions& options) {
   // 1. Read, validate and build the model before anything is written.
   const BuiltCase built = build_case(options.case_file);
+  if (built.hinge && built.input.analysis.control == Control::linear)
+    throw InputError(options.case_file, 0, "analysis.control", "\"linear\"",
+                     "\"arc_length\", \"displacement\" or \"load\" for a generated hinge-zone model");
   // 2. The output folder and its log file.
   const auto folder = prepare_output_folder(options.case_file, options.output, options.overwrite);
   add_log_file(folder);
@@ -23,7 +28,9 @@ int command_run(const CommandOptions& options) {
   log_info("caution: " + std::string(kCaution));
   // 3. The analysis.
   int code = kExitOk;
-  if (built.input.analysis.control == Control::linear)
+  if (built.hinge)
+    code = run_hinge_study(built.input, *built.hinge, folder, options.threads);
+  else if (built.input.analysis.control == Control::linear)
     code = run_general_linear(built.input, built.model, folder, options.threads);
   else
     code = run_general_path(built.input, built.model, folder, options.threads);

@@ -139,6 +139,7 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   options.max_iterations = a.max_iterations;
   options.first_step = a.first_step;
   options.min_step_ratio = a.min_step_ratio;
+  options.max_step_ratio = a.max_step_ratio;
   options.target_iterations = a.target_iterations;
   options.max_steps = a.max_steps;
   if (a.control == Control::load) {

@@ -21,8 +21,10 @@ BuiltCase build_case(const std::filesystem::path& case_file) {
     built.description.push_back("general model from " + built.input.model.mesh.string());
     return built;
   }
-  throw InputError(case_file, 0, "section", "a generated hinge-zone model",
-                   "a general model ([model] with a mesh file): the hinge-zone generator is not in this build");
+  built.hinge = build_hinge_case(built.input);
+  built.model = built.hinge->zone.model;
+  built.description = built.hinge->description;
+  return built;
 }
 
 }  // namespace rotcap::app

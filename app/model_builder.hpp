@@ -2,10 +2,12 @@
 // build_case: the case file read, validated and turned into the ShellModel to analyse, with the
 // lines `rotcap check` prints about it. General models come from their mesh file; generated models
 // from the hinge-zone generator.
+#include "app/hinge_case.hpp"
 #include "io/case_input.hpp"
 #include "model/shell_model.hpp"
 
 #include <filesystem>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -13,7 +15,8 @@ namespace rotcap::app {
 
 struct BuiltCase {
   CaseInput input;
-  ShellModel model;
+  ShellModel model;                      ///< the (perfect) model to analyse
+  std::optional<HingeCase> hinge;        ///< generated models: the hinge zone and its data
   std::vector<std::string> description;  ///< derived data for `check` and the log
 };
 

@@ -28,7 +28,7 @@ void RunRecorder::write_fields(int step, double time, const ShellModel& model, c
   char name[32];
   std::snprintf(name, sizeof name, "step_%04d.vtu", step);
   write_shell_fields(folder_ / "fields" / name, model, u, results);
-  pvd_.add(time, fs::path("fields") / name);
+  pvd_.add(time, folder_ / "fields" / name);
   written_.push_back(step);
 }
 

@@ -232,7 +232,8 @@ void ShellQ4::from_flat(Vec24& f, Mat24* K) const {
 
 ElementStatus ShellQ4::compute(const Vec24& d, const ShellSection& section,
                                std::span<const LayerState> committed, std::span<LayerState> trial,
-                               Vec24& f, Mat24* K, ShellQ4Resultants* out) const {
+                               Vec24& f, Mat24* K, ShellQ4Resultants* out,
+                               const Eigen::Vector4d* alpha_start, Eigen::Vector4d* alpha_end) const {
   const auto layers = static_cast<std::size_t>(section.layers());
   if (committed.size() < kGaussPoints * layers || trial.size() < kGaussPoints * layers)
     throw std::invalid_argument("ShellQ4::compute: history spans hold " +
@@ -276,7 +277,7 @@ ElementStatus ShellQ4::compute(const Vec24& d, const ShellSection& section,
 
   // Section response at the mode amplitudes alpha, and the mode residual R_alpha = dPi/dalpha
   // with its tangent K_aa.
-  Vec4 alpha = Vec4::Zero();
+  Vec4 alpha = (alpha_start != nullptr && !section.is_linear()) ? Vec4(*alpha_start) : Vec4::Zero();
   std::array<Vec6, 4> g, r;
   std::array<Mat6, 4> c;
   Vec4 r_alpha;
@@ -321,20 +322,31 @@ ElementStatus ShellQ4::compute(const Vec24& d, const ShellSection& section,
     }
   } else {
     // Local Newton loop on R_alpha(d, alpha) = 0 from alpha = 0; the last evaluation (and so the
-    // trial history) is at the converged alpha.
+    // trial history) is at the converged alpha. Plastic layers make R_alpha only piecewise smooth
+    // (elastic-plastic switches, kinks of the hardening curve), so a full Newton step that does not
+    // reduce |R_alpha| is halved (backtracking, up to 8 times) before it is taken.
     bool converged = false;
+    evaluate();
     for (int iteration = 0;; ++iteration) {
-      evaluate();
-      if (r_alpha.norm() <= options_.local_tolerance * force_scale) {
+      const double norm = r_alpha.norm();
+      if (norm <= options_.local_tolerance * force_scale) {
         converged = true;
         break;
       }
       if (iteration == options_.max_local_iterations || !factor()) break;
-      alpha -= k_aa_lu.solve(r_alpha);
+      const Vec4 step = k_aa_lu.solve(r_alpha);
+      const Vec4 start = alpha;
+      double s = 1.0;
+      for (int halving = 0; halving <= 8; ++halving, s *= 0.5) {
+        alpha = start - s * step;
+        evaluate();
+        if (r_alpha.norm() < norm) break;
+      }
     }
     if (!converged || !factor()) return ElementStatus::LocalIterationFailed;
   }
   if (!alpha.allFinite()) return ElementStatus::NotFinite;
+  if (alpha_end != nullptr) *alpha_end = alpha;
 
   // Internal force at the converged alpha: membrane + bending, MITC4 shear, drilling.
   Vec24 ff = (drill_mean_stiffness * drill_mean) * drill_mean_.transpose();

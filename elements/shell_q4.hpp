@@ -83,9 +83,16 @@ class ShellQ4 {
   /// The trial history written corresponds to the converged mode amplitudes.
   /// out (optional) receives the resultants at the Gauss points.
   /// Throws std::invalid_argument if a history span is shorter than kGaussPoints * layers().
+  /// alpha_start (optional): the incompatible-mode amplitudes the local iteration of a nonlinear
+  /// section starts from — pass the element's amplitudes at its committed state, so that with
+  /// history-dependent layers the local problem starts where the committed history was made
+  /// (from alpha = 0 the return map can meet a different loading path). alpha_end (optional)
+  /// receives the converged amplitudes (the caller commits them with the history).
   ElementStatus compute(const Vec24& d, const ShellSection& section,
                         std::span<const LayerState> committed, std::span<LayerState> trial,
-                        Vec24& f, Mat24* K, ShellQ4Resultants* out = nullptr) const;
+                        Vec24& f, Mat24* K, ShellQ4Resultants* out = nullptr,
+                        const Eigen::Vector4d* alpha_start = nullptr,
+                        Eigen::Vector4d* alpha_end = nullptr) const;
 
   /// Initial-stress (geometric) stiffness for the membrane forces n[gp] = [Nxx, Nyy, Nxy]:
   /// integral over the element of N_ab u_{,a} . u_{,b} for all three translations (u, v, w).

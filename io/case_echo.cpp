@@ -40,6 +40,7 @@ json analysis(const AnalysisInput& a, ModelKind kind) {
             {"max_iterations", a.max_iterations},
             {"first_step", a.first_step},
             {"min_step_ratio", a.min_step_ratio},
+            {"max_step_ratio", a.max_step_ratio},
             {"target_iterations", a.target_iterations},
             {"arc_length_form", enum_name(a.arc_length_form)},
             {"stop_below", a.stop_below},

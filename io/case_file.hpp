@@ -68,14 +68,15 @@
 //         force_tolerance     number: |residual| <= tol * |reference load|
 //                                                                 1e-6           0 < tol < 1
 //         displacement_tolerance  number: |correction| <= tol * |step increment|
-//                                                                 1e-6           0 < tol < 1
+//                                                                 1e-4           0 < tol < 1
 //         max_iterations      integer, Newton iterations per step 20             >= 1
 //         first_step          number: load-factor size of the first step (arc length: the first
 //                             arc expressed as a load-factor step)
 //                                                                 0.1            > 0
 //         min_step_ratio      number: cut-back floor / first_step 1e-4           0 < r <= 1
-//         target_iterations   integer: step-size adaptation target
-//                                                                 5              1 <= t <= max_iterations
+//         max_step_ratio      number: largest step / first_step   10             >= 1
+//         target_iterations   integer: step-size adaptation target (grow below it, shrink
+//                             above twice it)                     6              1 <= t <= max_iterations
 //         arc_length_form     "cylindrical" | "normal_plane"      "cylindrical"
 //         max_rotation        number [rad] (generated only): stop at this hinge rotation
 //                                                                 0.15           > 0

@@ -25,6 +25,8 @@ void read_stepping(TableReader& r, AnalysisInput& a) {
   a.min_step_ratio = r.number("min_step_ratio", a.min_step_ratio);
   r.check("min_step_ratio", a.min_step_ratio, a.min_step_ratio > 0.0 && a.min_step_ratio <= 1.0,
           "0 < min_step_ratio <= 1");
+  a.max_step_ratio = r.number("max_step_ratio", a.max_step_ratio);
+  r.check("max_step_ratio", a.max_step_ratio, a.max_step_ratio >= 1.0, "max_step_ratio >= 1");
   a.target_iterations = r.integer("target_iterations", a.target_iterations);
   r.check("target_iterations", a.target_iterations,
           a.target_iterations >= 1 && a.target_iterations <= a.max_iterations,

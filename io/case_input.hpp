@@ -118,11 +118,12 @@ struct GroupDof {
 struct AnalysisInput {
   Control control = Control::arc_length;  ///< general models: linear
   double force_tolerance = 1e-6;          ///< |r| <= tol |f_ref|
-  double displacement_tolerance = 1e-6;   ///< |du| <= tol |u increment of the step|
+  double displacement_tolerance = 1e-4;   ///< |du| <= tol |u increment of the step|
   int max_iterations = 20;
   double first_step = 0.1;                ///< load-factor size of the first step
   double min_step_ratio = 1e-4;           ///< cut-back floor, relative to first_step
-  int target_iterations = 5;              ///< step-size adaptation target
+  double max_step_ratio = 10.0;           ///< largest step, relative to first_step
+  int target_iterations = 6;              ///< step-size adaptation target
   ArcLengthForm arc_length_form = ArcLengthForm::cylindrical;
   double max_rotation = 0.15;             ///< generated models: stop at this hinge rotation [rad]
   double stop_below = 0.75;               ///< stop when M (or load factor) < stop_below * max

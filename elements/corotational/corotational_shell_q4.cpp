@@ -49,7 +49,8 @@ ElementStatus CorotationalShellQ4::compute(const NodalCoordinates& x, const Noda
                                            const ShellSection& section,
                                            std::span<const LayerState> committed,
                                            std::span<LayerState> trial, Vec24& f, Mat24* K,
-                                           ShellQ4Resultants* out) const {
+                                           ShellQ4Resultants* out, const Eigen::Vector4d* alpha_start,
+                                           Eigen::Vector4d* alpha_end) const {
   if (!x.allFinite() || !R[0].allFinite() || !R[1].allFinite() || !R[2].allFinite() ||
       !R[3].allFinite())
     return ElementStatus::NotFinite;
@@ -60,7 +61,7 @@ ElementStatus CorotationalShellQ4::compute(const NodalCoordinates& x, const Noda
       d.segment<3>(6 * i) = x.col(i) - X_.col(i);
       d.segment<3>(6 * i + 3) = rotation_log(R[i]);
     }
-    return compute_linear(d, section, committed, trial, f, K, out);
+    return compute_linear(d, section, committed, trial, f, K, out, alpha_start, alpha_end);
   }
 
   const CorotationalKinematics kin(core_.local_coordinates(), initial_frame_.rotation, x, R);
@@ -69,7 +70,8 @@ ElementStatus CorotationalShellQ4::compute(const NodalCoordinates& x, const Noda
   Vec24 f_bar;
   Mat24 K_bar;
   const ElementStatus status = core_.compute(kin.local_displacements(), section, committed, trial,
-                                             f_bar, K != nullptr ? &K_bar : nullptr, out);
+                                             f_bar, K != nullptr ? &K_bar : nullptr, out, alpha_start,
+                                             alpha_end);
   if (status != ElementStatus::Ok) return status;
   kin.to_global(f_bar, K != nullptr ? &K_bar : nullptr, f, K);
   if (!f.allFinite() || (K != nullptr && !K->allFinite())) return ElementStatus::NotFinite;
@@ -79,7 +81,8 @@ ElementStatus CorotationalShellQ4::compute(const NodalCoordinates& x, const Noda
 ElementStatus CorotationalShellQ4::compute_linear(const Vec24& d, const ShellSection& section,
                                                   std::span<const LayerState> committed,
                                                   std::span<LayerState> trial, Vec24& f, Mat24* K,
-                                                  ShellQ4Resultants* out) const {
+                                                  ShellQ4Resultants* out, const Eigen::Vector4d* alpha_start,
+                                                  Eigen::Vector4d* alpha_end) const {
   if (!d.allFinite()) return ElementStatus::NotFinite;
   const Eigen::Matrix3d& R0 = initial_frame_.rotation;
   Vec24 d_bar;
@@ -87,7 +90,8 @@ ElementStatus CorotationalShellQ4::compute_linear(const Vec24& d, const ShellSec
   Vec24 f_bar;
   Mat24 K_bar;
   const ElementStatus status =
-      core_.compute(d_bar, section, committed, trial, f_bar, K != nullptr ? &K_bar : nullptr, out);
+      core_.compute(d_bar, section, committed, trial, f_bar, K != nullptr ? &K_bar : nullptr, out, alpha_start,
+                    alpha_end);
   if (status != ElementStatus::Ok) return status;
   for (int i = 0; i < 8; ++i) f.segment<3>(3 * i) = R0 * f_bar.segment<3>(3 * i);
   if (K != nullptr) *K = to_global_axes(R0, K_bar);

@@ -45,19 +45,23 @@ class CorotationalShellQ4 {
   /// Internal force f and (if K != nullptr) the tangent at the configuration x (current nodal
   /// coordinates) and R (current nodal rotations, identity initially), global axes.
   /// committed / trial: ShellQ4::kGaussPoints * section.layers() slots (Gauss point major).
+  /// alpha_start / alpha_end: the core's incompatible-mode amplitudes (see ShellQ4::compute).
   /// Status: Ok; NegativeJacobian also when the current frame is degenerate; NotFinite when the
   /// input or the result holds NaN / inf; otherwise the core element's status. For any status but
   /// Ok, f, K and trial are unspecified.
   ElementStatus compute(const NodalCoordinates& x, const NodalRotations& R,
                         const ShellSection& section, std::span<const LayerState> committed,
                         std::span<LayerState> trial, Vec24& f, Mat24* K,
-                        ShellQ4Resultants* out = nullptr) const;
+                        ShellQ4Resultants* out = nullptr, const Eigen::Vector4d* alpha_start = nullptr,
+                        Eigen::Vector4d* alpha_end = nullptr) const;
 
   /// The linear element for a global displacement vector d (rotations as small rotation vectors),
   /// whatever the mode: f = T^T f_bar(T d), K = T^T K_bar T.
   ElementStatus compute_linear(const Vec24& d, const ShellSection& section,
                                std::span<const LayerState> committed, std::span<LayerState> trial,
-                               Vec24& f, Mat24* K, ShellQ4Resultants* out = nullptr) const;
+                               Vec24& f, Mat24* K, ShellQ4Resultants* out = nullptr,
+                               const Eigen::Vector4d* alpha_start = nullptr,
+                               Eigen::Vector4d* alpha_end = nullptr) const;
 
   /// Geometric (initial-stress) stiffness for linear buckling about the initial configuration:
   /// T^T K_sigma T with K_sigma = core().geometric_stiffness(membrane_forces) (local membrane

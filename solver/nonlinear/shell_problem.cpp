@@ -38,6 +38,8 @@ ShellProblem::ShellProblem(const ShellModel& model, const SectionAssignment& sec
   }
   history_committed_.assign(history_offset_.back(), LayerState{});
   history_trial_ = history_committed_;
+  alpha_committed_.assign(model_.elements.size(), Eigen::Vector4d::Zero());
+  alpha_trial_ = alpha_committed_;
   const int n = model_.node_count();
   u_.assign(n, Eigen::Vector3d::Zero());
   u_committed_ = u_;
@@ -88,7 +90,7 @@ ElementKernel ShellProblem::kernel(std::vector<ShellQ4Resultants>* out) const {
     const ElementStatus status = elements_[e].compute(
         x, R, sections_.of(e), std::span<const LayerState>(history_committed_.data() + begin, count),
         std::span<LayerState>(history_trial_.data() + begin, count), fe, K,
-        out ? &(*out)[e] : nullptr);
+        out ? &(*out)[e] : nullptr, &alpha_committed_[e], &alpha_trial_[e]);
     if (status == ElementStatus::Ok)
       ties_.to_masters(e, model_.elements[e].nodes, x, [this](int m) { return Eigen::Vector3d(model_.nodes[m] + u_[m]); },
                        K, fe);
@@ -167,12 +169,14 @@ void ShellProblem::commit() {
   u_committed_ = u_;
   R_committed_ = R_;
   history_committed_ = history_trial_;
+  alpha_committed_ = alpha_trial_;
 }
 
 void ShellProblem::revert() {
   u_ = u_committed_;
   R_ = R_committed_;
   history_trial_ = history_committed_;
+  alpha_trial_ = alpha_committed_;
 }
 
 Eigen::VectorXd ShellProblem::displacements() const {
@@ -206,7 +210,9 @@ std::vector<ElementSnapshot> ShellProblem::snapshot() const {
     const std::span<const LayerState> committed(history_committed_.data() + begin, count);
     const std::span<LayerState> trial(scratch.data() + begin, count);
     Vec24 f;
-    elements_[e].compute(x, R, sections_.of(e), committed, trial, f, nullptr, &out[e].resultants);
+    Eigen::Vector4d alpha;
+    elements_[e].compute(x, R, sections_.of(e), committed, trial, f, nullptr, &out[e].resultants,
+                         &alpha_committed_[e], &alpha);
     out[e].frame = elements_[e].current_frame(x);
     const int layers = sections_.of(e).layers();
     for (int gp = 0; gp < ShellQ4::kGaussPoints; ++gp)

@@ -115,6 +115,8 @@ class ShellProblem final : public EquilibriumProblem {
   std::vector<std::size_t> history_offset_;
   std::vector<LayerState> history_committed_;
   mutable std::vector<LayerState> history_trial_;
+  std::vector<Eigen::Vector4d> alpha_committed_;      // incompatible-mode amplitudes per element
+  mutable std::vector<Eigen::Vector4d> alpha_trial_;
   Eigen::VectorXd f_ref_, f_fixed_, weights_, f_full_;
   std::vector<double> values_;
   int factorisations_ = 0;

@@ -143,6 +143,12 @@ PathSummary PathFollower::run(const Observer& observer, double lambda0) {
       result = attempt_step(kLandingControl, record.step_size, record);
       lands = true;
     }
+    // A converged step that turns back on the previous one (obtuse angle between the increments,
+    // arc-length weights) has jumped to another part of the path: treat it as diverged.
+    if (result == Attempt::Converged && Du_prev_.size() == Du_.size()) {
+      const Eigen::VectorXd& w = problem_.arc_length_weights();
+      if ((Du_.array() * w.array() * Du_prev_.array()).sum() < 0.0) result = Attempt::Diverged;
+    }
     if (result != Attempt::Converged) {
       // --- cut back: halve and retry from the committed state
       problem_.revert();
@@ -181,9 +187,12 @@ PathSummary PathFollower::run(const Observer& observer, double lambda0) {
       return summary;
     }
     // --- adapt the step size to the iteration count
-    const double ratio = std::sqrt(static_cast<double>(options_.target_iterations) /
-                                   std::max(1, record.iterations));
-    size = std::clamp(size * std::clamp(ratio, 0.5, 2.0), floor, ceiling);
+    const int target = options_.target_iterations;
+    double factor = 1.0;
+    if (record.iterations <= target / 2) factor = 2.0;
+    else if (record.iterations <= target) factor = 1.25;
+    else if (record.iterations > 2 * target) factor = std::max(0.5, std::sqrt(double(target) / record.iterations));
+    size = std::clamp(size * factor, floor, ceiling);
   }
   summary.status = PathStatus::MaxSteps;
   summary.message = "reached max_steps = " + std::to_string(options_.max_steps);

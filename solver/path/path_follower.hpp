@@ -4,8 +4,13 @@
 //
 // Each step: predict (tangent at the committed state, dlambda from the constraint), correct (Newton
 // with the full tangent, two solves per iteration), and on convergence commit and adapt the step size
-// to the iteration count (size *= sqrt(target / iterations), Crisfield 1991 vol. 1 section 9.5, clipped
-// to [1/2, 2]); on divergence revert and halve, down to a floor (min_step_ratio * first size), then stop.
+// to the iteration count I against target_iterations T: x2 for I <= T/2, x1.25 for I <= T, kept for
+// T < I <= 2T, x sqrt(T/I) (at least 1/2) above (the square-root rule of Crisfield 1991, vol. 1,
+// section 9.5, with a dead band: plastic steps often need a few iterations more while yield zones
+// spread, and shrinking on every such step lets the size decay for good); on divergence revert and
+// halve, down to a floor (min_step_ratio * first size), then stop. A converged step whose increment
+// makes an obtuse angle with the previous one (it doubled back to another part of the path) is
+// rejected like a diverged one.
 // Convergence needs BOTH  |r| <= force_tolerance * |f_ref|  and  |du|_W <= displacement_tolerance * |Du|_W
 // (du the last correction, Du the step increment, W the arc-length weights = translations).
 
@@ -21,12 +26,12 @@ namespace rotcap {
 
 struct PathOptions {
   double force_tolerance = 1.0e-6;          ///< > 0, relative to |f_ref|
-  double displacement_tolerance = 1.0e-6;   ///< > 0, relative to the step increment
+  double displacement_tolerance = 1.0e-4;   ///< > 0, relative to the step increment
   int max_iterations = 20;                  ///< >= 1 Newton corrections per attempt
   double first_step = 0.1;                  ///< > 0, load-factor size of the first step
   double min_step_ratio = 1.0e-4;           ///< in (0, 1]: cut-back floor relative to the first step
-  double max_step_ratio = 4.0;              ///< >= 1: largest step relative to the first step
-  int target_iterations = 5;                ///< >= 1
+  double max_step_ratio = 10.0;             ///< >= 1: largest step relative to the first step
+  int target_iterations = 6;                ///< >= 1
   int max_steps = 500;                      ///< >= 1 converged steps
   double max_load_factor = std::numeric_limits<double>::infinity();   ///< landed on exactly
   double max_control_value = std::numeric_limits<double>::quiet_NaN();///< displacement control: landed on

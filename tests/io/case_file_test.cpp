@@ -85,11 +85,12 @@ TEST(CaseFile, FillsTheDocumentedDefaultsOfAMinimalGeneratedCase) {
   const AnalysisInput& a = c.analysis;
   EXPECT_EQ(a.control, Control::arc_length);
   EXPECT_EQ(a.force_tolerance, 1e-6);
-  EXPECT_EQ(a.displacement_tolerance, 1e-6);
+  EXPECT_EQ(a.displacement_tolerance, 1e-4);
   EXPECT_EQ(a.max_iterations, 20);
   EXPECT_EQ(a.first_step, 0.1);
   EXPECT_EQ(a.min_step_ratio, 1e-4);
-  EXPECT_EQ(a.target_iterations, 5);
+  EXPECT_EQ(a.target_iterations, 6);
+  EXPECT_EQ(a.max_step_ratio, 10.0);
   EXPECT_EQ(a.arc_length_form, ArcLengthForm::cylindrical);
   EXPECT_FALSE(a.max_load_factor.has_value());
   EXPECT_EQ(c.buckling.modes, 4);

@@ -48,7 +48,7 @@ TEST(PathFollower, LoadControlLandsExactlyOnMaxLoadFactorForLinearSpring) {
 
 TEST(PathFollower, ArcLengthPassesBothLimitPointsOfCubicPath) {
   DenseProblem p = cubic_problem();
-  ArcLength arc(V::Ones(1), ArcLengthForm::Cylindrical);
+  ArcLength arc(V::Ones(1), ArcLength::Form::Cylindrical);
   PathOptions o;
   o.first_step = 0.05;
   o.max_steps = 400;
@@ -83,8 +83,9 @@ TEST(PathFollower, ArcLengthPassesBothLimitPointsOfCubicPath) {
 TEST(PathFollower, ArcLengthFollowsSnapBackWhereDisplacementControlCannot) {
   const double k1 = 0.5;  // f'(u1) reaches -1 < -k1: the loaded DOF snaps back
   DenseProblem p = snap_back_problem(k1);
-  ArcLength arc(V::Ones(2), ArcLengthForm::Cylindrical);
+  ArcLength arc(V::Ones(2), ArcLength::Form::Cylindrical);
   PathOptions o;
+  o.force_tolerance = 1e-10;  // so that "on the path" below can be checked to 1e-8
   o.first_step = 0.05;
   o.max_steps = 600;
   double u0_max_before_back = -1e9;
@@ -126,7 +127,7 @@ TEST(PathFollower, DisplacementControlPassesLoadLimitPoint) {
 TEST(PathFollower, NewtonConvergesQuadraticallyOnSnapBackPath) {
   // With one DOF the cylindrical constraint fixes u outright; two DOFs make the corrector iterate.
   DenseProblem p = snap_back_problem(0.5);
-  ArcLength arc(V::Ones(2), ArcLengthForm::Cylindrical);
+  ArcLength arc(V::Ones(2), ArcLength::Form::Cylindrical);
   PathOptions o;
   o.first_step = 0.1;
   o.force_tolerance = 1e-13;
@@ -139,9 +140,10 @@ TEST(PathFollower, NewtonConvergesQuadraticallyOnSnapBackPath) {
     for (double x : r) std::cout << " " << x;
     std::cout << "\n";
     // ||r_k+1|| <= C ||r_k||^2 once the iterates are close (r_k < 1e-2); C = 10 is moderate for
-    // f'' = 6u - 6 of order 10 and f' of order 1.
+    // f'' = 6u - 6 of order 10 and f' of order 1. Below 1e-12 (a few thousand eps for O(1) terms)
+    // the residual is round-off and no longer shows the rate.
     for (std::size_t k = 0; k + 1 < r.size(); ++k)
-      if (r[k] < 1e-2 && r[k + 1] > 1e-14) {
+      if (r[k] < 1e-2 && r[k + 1] > 1e-12) {
         EXPECT_LE(r[k + 1], 10.0 * r[k] * r[k]);
         ++checked;
       }
