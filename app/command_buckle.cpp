@@ -51,7 +51,7 @@ int command_buckle(const CommandOptions& options) {
     char name[32];
     std::snprintf(name, sizeof name, "mode_%02zu.vtu", k + 1);
     write_shell_fields(folder / "modes" / name, built.model, result.modes[k], ElementResults{});
-    pvd.add(static_cast<double>(k + 1), std::filesystem::path("modes") / name);
+    pvd.add(static_cast<double>(k + 1), folder / "modes" / name);
   }
   {
     std::ofstream out(folder / "buckling.json");

@@ -179,9 +179,13 @@ PathSummary PathFollower::run(const Observer& observer, double lambda0) {
     ++summary.steps;
     summary.iterations += record.iterations;
     summary.load_factor = lambda_;
-    if (!factorise_at_committed(summary)) return summary;
-    record.negative_pivots = problem_.negative_pivots();
-    if (!observer(record) || lands) {
+    // The tangent at the converged state (for the next predictor and the inertia count); a step that
+    // converged is reported to the observer even when this factorisation fails.
+    const bool factorised = factorise_at_committed(summary);
+    record.negative_pivots = factorised ? problem_.negative_pivots() : -1;
+    const bool go_on = observer(record);
+    if (!factorised) return summary;
+    if (!go_on || lands) {
       summary.status = PathStatus::Completed;
       summary.message = lands ? "landed on the load or displacement limit" : "stop criterion met";
       return summary;
