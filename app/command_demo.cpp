@@ -29,8 +29,8 @@ int command_demo(const CommandOptions& options) {
   run.overwrite = true;
   const int code = command_run(run);
   log_info("demo case: " + run.case_file.string());
-  log_info("open " + (folder / "fields.pvd").string() + " in ParaView; the curve is in " +
-           (folder / "curve.csv").string() + ", the numbers in " + (folder / "summary.json").string());
+  log_info("plot: " + (folder / "curve.svg").string() + "; fields (ParaView): " + (folder / "fields.pvd").string());
+  log_info("curve: " + (folder / "curve.csv").string() + "; numbers: " + (folder / "summary.json").string());
   return code;
 }
 

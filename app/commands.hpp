@@ -29,5 +29,8 @@ int command_run(const CommandOptions& options);
 int command_buckle(const CommandOptions& options);
 /// Writes the bundled demo case into the output folder and runs it.
 int command_demo(const CommandOptions& options);
+/// Re-makes curve.svg, the law comparison, hinge_law.csv and report.html of a results folder
+/// (options.case_file holds the folder) without re-running the analysis.
+int command_report(const CommandOptions& options);
 
 }  // namespace rotcap::app

@@ -95,7 +95,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   if (input.residual_stress != ResidualPattern::none) {
     const EquilibrateResult eq = equilibrate(problem, force_scale);
     char line[200];
-    std::snprintf(line, sizeof line, "residual-stress equilibrium: %s in %d iterations, |u| moved %.3g mm",
+    std::snprintf(line, sizeof line, "residual-stress equilibrium: %s in %d iterations, largest displacement %.3g mm",
                   eq.converged ? "converged" : "FAILED", eq.iterations, eq.displacement_norm);
     log_info(line);
     summary["residual_stress"]["equilibrium_iterations"] = eq.iterations;

@@ -1,5 +1,7 @@
 #include "app/hinge_stages.hpp"
 
+#include "app/hinge_laws_stage.hpp"
+
 #include "app/logging.hpp"
 #include "app/sections.hpp"
 #include "elements/shell_q4.hpp"
@@ -143,7 +145,6 @@ double computed_theta_p(const HingeCase& hinge, const std::vector<HingePoint>& c
 StageReport report_hinge_results(const CaseInput& input, const HingeCase& hinge, const ShellModel& model,
                                  const std::vector<HingePoint>& curve, const Eigen::VectorXd& u_peak,
                                  const Eigen::VectorXd& u_end, const std::filesystem::path& folder) {
-  (void)model;
   StageReport report;
   const double mp = hinge.zone.plastic_moment;
   std::vector<MomentRotationPoint> points;
@@ -189,26 +190,17 @@ StageReport report_hinge_results(const CaseInput& input, const HingeCase& hinge,
   else
     report.log.push_back("rotation capacity: none (" + r.message + ")");
   report.log.push_back("failure mode: " + mode + " (" + why + ")");
-  // curve.svg: M/Mp against theta/theta_p.
-  LinePlot plot;
-  plot.options.title = input.title.empty() ? "Moment-rotation curve" : input.title;
-  plot.options.x_label = "theta / theta_p";
-  plot.options.y_label = "M / Mp";
-  PlotSeries shell;
-  shell.name = "shell model (rotcap)";
-  for (const HingePoint& p : curve) {
-    shell.x.push_back(p.rotation / theta_p);
-    shell.y.push_back(p.moment / mp);
+  // curve.svg with the simple hinge laws, the law comparison, hinge_law.csv, report.html and
+  // final_state.json (app/hinge_laws_stage.hpp).
+  try {
+    const DeformedMesh final_mesh = deformed_mesh(model, u_end);
+    write_final_state(final_mesh, folder / "final_state.json");
+    const StageReport laws = report_hinge_laws(input, hinge, curve, final_mesh, j, folder);
+    report.log.insert(report.log.end(), laws.log.begin(), laws.log.end());
+    j.update(laws.json);
+  } catch (const std::exception& e) {
+    log_warn(std::string("hinge laws and report.html not made: ") + e.what());
   }
-  plot.series.push_back(shell);
-  plot.reference_lines.push_back({LineOrientation::horizontal, 1.0, "Mp", "#555555", LineDash::dashed});
-  plot.point_labels.push_back({r.theta_at_m_max / theta_p, r.m_max / mp, fmt("peak %.3f Mp", r.m_max / mp), "#b00000", MarkerShape::circle});
-  if (r.theta_u)
-    plot.point_labels.push_back({*r.theta_u / theta_p, 1.0,
-                                 r.rotation_capacity_is_lower_bound ? std::string("end of run (R >= ") + fmt("%.2f)", *r.rotation_capacity)
-                                                                    : fmt("theta_u, R = %.2f", *r.rotation_capacity),
-                                 "#0050b0", MarkerShape::diamond});
-  write_svg(plot, folder / "curve.svg");
   return report;
 }
 

@@ -41,6 +41,9 @@ int main(int argc, char** argv) {
   buckle->add_option("-n,--modes", o.modes, "number of lowest positive load factors");
   CLI::App* demo = cli.add_subcommand("demo", "run the bundled demo case end to end");
   add_common(demo, o, false, true);
+  CLI::App* report = cli.add_subcommand("report", "re-make curve.svg, hinge_law.csv and report.html of a results folder");
+  report->add_option("DIR", o.case_file, "results folder of `rotcap run`")->required();
+  report->add_flag("--quiet", o.quiet, "print warnings and errors only");
   try {
     cli.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -55,6 +58,7 @@ int main(int argc, char** argv) {
     if (*check) return command_check(o);
     if (*buckle) return command_buckle(o);
     if (*demo) return command_demo(o);
+    if (*report) return command_report(o);
   } catch (const rotcap::InputError& e) {
     std::cerr << "rotcap: error: " << e.what() << "\n";
     return kExitBadInput;

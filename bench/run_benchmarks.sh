@@ -7,7 +7,7 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 build="${1:-build}"
 cmake -S . -B "$build" -DCMAKE_BUILD_TYPE=Release > /dev/null
-cmake --build "$build" --target bench_linear_plate -j "$(nproc)"
+cmake --build "$build" --target bench_linear_plate rotcap -j "$(nproc)"
 mkdir -p bench/results
 export OPENBLAS_NUM_THREADS=1   # CHOLMOD's BLAS single-threaded; the cores go to OpenMP assembly
 cpu="$(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2- | sed 's/^ *//' || true)"
@@ -20,3 +20,4 @@ run() {
   } | tee "bench/results/${name}.txt"
 }
 run linear_plate "$build/bench/bench_linear_plate"
+run demo bench/demo_bench.sh "$build"

@@ -19,7 +19,7 @@ EquilibrateResult equilibrate(EquilibriumProblem& problem, double force_scale, c
     if (r.norm() <= options.force_tolerance * force_scale) {
       result.converged = true;
       result.iterations = k;
-      result.displacement_norm = std::sqrt((total.array().square() * w.array()).sum());
+      result.displacement_norm = (total.array().abs() * w.array()).maxCoeff();
       problem.commit();
       return result;
     }

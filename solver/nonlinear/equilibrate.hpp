@@ -19,7 +19,7 @@ struct EquilibrateResult {
   bool converged = false;
   int iterations = 0;
   std::vector<double> residual_norms;  ///< |r| before each correction and at the end
-  double displacement_norm = 0.0;      ///< |u| of the translations moved (arc-length weights)
+  double displacement_norm = 0.0;      ///< largest translation component moved [mm]
   std::string message;
 };
 
