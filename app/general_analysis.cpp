@@ -1,5 +1,6 @@
 #include "app/general_analysis.hpp"
 
+#include "app/analysis_common.hpp"
 #include "app/commands.hpp"
 #include "app/logging.hpp"
 #include "app/run_recorder.hpp"
@@ -43,15 +44,6 @@ ElementResults linear_results(const ShellModel& model, const SectionAssignment& 
   r.surfaces.resize(resultants.size());
   for (int e = 0; e < model.element_count(); ++e)
     for (int gp = 0; gp < 4; ++gp) r.surfaces[e][gp] = sections.of(e).surfaces(resultants[e].g[gp], {});
-  return r;
-}
-
-ElementResults snapshot_results(const ShellProblem& problem) {
-  ElementResults r;
-  for (ElementSnapshot& s : problem.snapshot()) {
-    r.resultants.push_back(s.resultants);
-    r.surfaces.push_back(s.surfaces);
-  }
   return r;
 }
 
@@ -133,15 +125,7 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   ShellProblem problem(model, sections, po);
   // 1. The step constraint of the chosen control.
   std::unique_ptr<StepConstraint> constraint;
-  PathOptions options;
-  options.force_tolerance = a.force_tolerance;
-  options.displacement_tolerance = a.displacement_tolerance;
-  options.max_iterations = a.max_iterations;
-  options.first_step = a.first_step;
-  options.min_step_ratio = a.min_step_ratio;
-  options.max_step_ratio = a.max_step_ratio;
-  options.target_iterations = a.target_iterations;
-  options.max_steps = a.max_steps;
+  PathOptions options = path_options(a);
   if (a.control == Control::load) {
     constraint = std::make_unique<LoadControl>();
     options.max_load_factor = a.max_load_factor.value_or(1.0);
@@ -149,9 +133,7 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
     constraint = std::make_unique<DisplacementControl>(control_weights(input, model, problem.dofs()));
     if (a.max_displacement) options.max_control_value = *a.max_displacement;
   } else {
-    constraint = std::make_unique<ArcLength>(problem.arc_length_weights(), a.arc_length_form == rotcap::ArcLengthForm::normal_plane
-                                                                               ? ArcLength::Form::NormalPlane
-                                                                               : ArcLength::Form::Cylindrical);
+    constraint = arc_length_constraint(problem, a);
   }
   if (a.max_load_factor && a.control != Control::load) options.max_load_factor = *a.max_load_factor;
   // 2. The recorder and the unloaded state as step 0.

@@ -1,5 +1,6 @@
 #include "app/hinge_analysis.hpp"
 
+#include "app/analysis_common.hpp"
 #include "app/commands.hpp"
 #include "app/hinge_stages.hpp"
 #include "app/logging.hpp"
@@ -32,32 +33,10 @@ double hinge_rotation(const HingeZoneModel& zone, const Eigen::VectorXd& u) {
   return theta;
 }
 
-ElementResults results_of(const ShellProblem& problem) {
-  ElementResults r;
-  for (ElementSnapshot& s : problem.snapshot()) {
-    r.resultants.push_back(s.resultants);
-    r.surfaces.push_back(s.surfaces);
-  }
-  return r;
-}
-
 std::vector<double> row_of(const HingePoint& p, double mp, double theta_p) {
   return {double(p.step), p.load_factor, p.moment / 1e6, 1e3 * p.rotation, p.moment / mp,
           theta_p > 0 ? p.rotation / theta_p : 0.0, p.max_plastic_strain, double(p.iterations),
           double(p.negative_pivots)};
-}
-
-PathOptions path_options(const AnalysisInput& a) {
-  PathOptions o;
-  o.force_tolerance = a.force_tolerance;
-  o.displacement_tolerance = a.displacement_tolerance;
-  o.max_iterations = a.max_iterations;
-  o.first_step = a.first_step;
-  o.min_step_ratio = a.min_step_ratio;
-  o.max_step_ratio = a.max_step_ratio;
-  o.target_iterations = a.target_iterations;
-  o.max_steps = a.max_steps;
-  return o;
 }
 
 /// Control weights of the hinge rotation over the free DOFs (displacement control of theta).
@@ -121,7 +100,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   std::vector<HingePoint> curve{HingePoint{}};
   const Eigen::VectorXd u0 = problem.displacements();
   recorder.add_row(row_of(curve[0], mp, hinge.theta_p_beam));
-  recorder.write_fields(0, 0.0, model, u0, results_of(problem));
+  recorder.write_fields(0, 0.0, model, u0, snapshot_results(problem));
   double m_max = 0.0, theta_p_first = 0.0;
   Eigen::VectorXd u_peak = u0;
   int peak_step = 0;
@@ -149,11 +128,11 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
       m_max = p.moment;
       u_peak = u;
       peak_step = p.step;
-      peak_results = results_of(problem);
+      peak_results = snapshot_results(problem);
     } else if (peak_step > 0 && !recorder.has_fields(peak_step)) {
       recorder.write_fields(peak_step, curve[peak_step].load_factor, model, u_peak, peak_results);
     }
-    if (recorder.fields_due(p.step)) recorder.write_fields(p.step, p.load_factor, model, u, results_of(problem));
+    if (recorder.fields_due(p.step)) recorder.write_fields(p.step, p.load_factor, model, u, snapshot_results(problem));
     if (std::abs(p.rotation) >= input.analysis.max_rotation) {
       stop_reason = "rotation reached max_rotation";
       return false;
@@ -170,10 +149,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   else if (input.analysis.control == Control::load)
     constraint = std::make_unique<LoadControl>();
   else
-    constraint = std::make_unique<ArcLength>(problem.arc_length_weights(),
-                                             input.analysis.arc_length_form == rotcap::ArcLengthForm::normal_plane
-                                                 ? ArcLength::Form::NormalPlane
-                                                 : ArcLength::Form::Cylindrical);
+    constraint = arc_length_constraint(problem, input.analysis);
   PathOptions bo = options;
   if (input.analysis.control == Control::load) bo.max_load_factor = input.analysis.max_load_factor.value_or(1.0);
   log_info("tracing the moment-rotation curve (" + enum_name(input.analysis.control) + "), " +
@@ -184,7 +160,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   // 5. The last fields, the reported numbers and the summary.
   const Eigen::VectorXd u_end = problem.displacements();
   const int last = curve.back().step;
-  if (!recorder.has_fields(last)) recorder.write_fields(last, curve.back().load_factor, model, u_end, results_of(problem));
+  if (!recorder.has_fields(last)) recorder.write_fields(last, curve.back().load_factor, model, u_end, snapshot_results(problem));
   if (peak_step > 0 && !recorder.has_fields(peak_step))
     recorder.write_fields(peak_step, curve[peak_step].load_factor, model, u_peak, peak_results);
   const StageReport results = report_hinge_results(input, hinge, model, curve, u_peak, u_end, folder);

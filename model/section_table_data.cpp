@@ -1,5 +1,5 @@
 // Data of the built-in section table (see section_table.hpp for the source and the units).
-// Transcribed from waynemaranga/steelsnakes, src/steelsnakes/EU/data/IPE.json and HE.json,
+// Copied from waynemaranga/steelsnakes, src/steelsnakes/EU/data/IPE.json and HE.json,
 // commit 38bc16a3d9d38e592a237b2e000a4a032071c78a (SCI/ArcelorMittal table format; EN 10365).
 // Columns: designation, h, b, tw, tf, r [mm];  A [cm^2], Iy [cm^4], Iz [cm^4], Wpl,y [cm^3],
 // It [cm^4], Iw [dm^6] as printed in the data set.

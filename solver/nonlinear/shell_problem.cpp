@@ -47,6 +47,7 @@ ShellProblem::ShellProblem(const ShellModel& model, const SectionAssignment& sec
   R_committed_ = R_;
   f_ref_ = dofs_.gather(reference_load_vector(model_));
   f_fixed_ = Eigen::VectorXd::Zero(dofs_.free_count());
+  find_moment_nodes();
   weights_ = Eigen::VectorXd::Zero(dofs_.free_count());
   for (int q = 0; q < dofs_.free_count(); ++q) weights_[q] = (dofs_.dof_of_equation(q) % kDofsPerNode) < 3 ? 1.0 : 0.0;
   f_full_ = Eigen::VectorXd::Zero(model_.dof_count());
@@ -55,8 +56,66 @@ ShellProblem::ShellProblem(const ShellModel& model, const SectionAssignment& sec
 
 ShellProblem::~ShellProblem() = default;
 
-void ShellProblem::set_reference_load(const Eigen::VectorXd& full) { f_ref_ = dofs_.gather(full); }
-void ShellProblem::set_fixed_load(const Eigen::VectorXd& full) { f_fixed_ = dofs_.gather(full); }
+void ShellProblem::set_reference_load(const Eigen::VectorXd& full) {
+  f_ref_ = dofs_.gather(full);
+  find_moment_nodes();
+}
+void ShellProblem::set_fixed_load(const Eigen::VectorXd& full) {
+  f_fixed_ = dofs_.gather(full);
+  find_moment_nodes();
+}
+
+void ShellProblem::find_moment_nodes() {
+  moment_nodes_.clear();
+  skew_equations_.clear();
+  if (options_.element.kinematics != CorotationalShellQ4::Kinematics::Corotational) return;
+  for (int node = 0; node < model_.node_count(); ++node) {
+    bool loaded = false;
+    std::vector<int> eqs;
+    for (int k = 0; k < 3; ++k) {
+      const int q = dofs_.equation(node, static_cast<Dof>(3 + k));
+      if (q < 0) continue;
+      eqs.push_back(q);
+      if (f_ref_[q] != 0.0 || f_fixed_[q] != 0.0) loaded = true;
+    }
+    if (loaded) {
+      moment_nodes_.push_back(node);
+      skew_equations_.insert(skew_equations_.end(), eqs.begin(), eqs.end());
+    }
+  }
+}
+
+void ShellProblem::prepare_skew_correction() {
+  skew_active_ = false;
+  const int k = static_cast<int>(skew_equations_.size());
+  if (k == 0) return;
+  // S = E^T K_skew E: -1/2 skew(m) of each moment node, on its free rotation equations.
+  skew_S_ = Eigen::MatrixXd::Zero(k, k);
+  int offset = 0;
+  for (int node : moment_nodes_) {
+    const Eigen::Vector3d m = f_full_.segment<3>(kDofsPerNode * node + 3);
+    Eigen::Matrix3d w;
+    w << 0.0, -m.z(), m.y(), m.z(), 0.0, -m.x(), -m.y(), m.x(), 0.0;
+    std::vector<int> local;
+    for (int c = 0; c < 3; ++c)
+      if (dofs_.equation(node, static_cast<Dof>(3 + c)) >= 0) local.push_back(c);
+    for (std::size_t a = 0; a < local.size(); ++a)
+      for (std::size_t b = 0; b < local.size(); ++b) skew_S_(offset + a, offset + b) = -0.5 * w(local[a], local[b]);
+    offset += static_cast<int>(local.size());
+  }
+  skew_Z_.resize(size(), k);
+  Eigen::VectorXd e = Eigen::VectorXd::Zero(size()), z(size());
+  for (int c = 0; c < k; ++c) {
+    e.setZero();
+    e[skew_equations_[c]] = 1.0;
+    active_->solve(e.data(), z.data());
+    skew_Z_.col(c) = z;
+  }
+  Eigen::MatrixXd ez(k, k);
+  for (int r = 0; r < k; ++r) ez.row(r) = skew_Z_.row(skew_equations_[r]);
+  skew_lu_.compute(Eigen::MatrixXd::Identity(k, k) + skew_S_ * ez);
+  skew_active_ = true;
+}
 
 void ShellProblem::set_initial_stress(
     const std::function<Eigen::Vector3d(int element, int gauss_point, int layer)>& stress) {
@@ -130,11 +189,13 @@ EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool fa
     negative_pivots_ = ldlt_->negative_pivots();
     indefinite_ = s == FactorStatus::Ok && negative_pivots_ > 0;
   }
-  factor_seconds_ += seconds_since(t1);
   if (s != FactorStatus::Ok) {
+    factor_seconds_ += seconds_since(t1);
     message_ = std::string("factorisation failed: ") + active_->message();
     return EvaluationStatus::FactorisationFailed;
   }
+  prepare_skew_correction();
+  factor_seconds_ += seconds_since(t1);
   return EvaluationStatus::Ok;
 }
 
@@ -142,6 +203,11 @@ void ShellProblem::solve(const Eigen::VectorXd& rhs, Eigen::VectorXd& x) {
   if (!active_) throw std::logic_error("ShellProblem::solve before a factorisation");
   x.resize(rhs.size());
   active_->solve(rhs.data(), x.data());
+  if (!skew_active_) return;
+  const int k = static_cast<int>(skew_equations_.size());
+  Eigen::VectorXd ey(k);
+  for (int r = 0; r < k; ++r) ey[r] = x[skew_equations_[r]];
+  x -= skew_Z_ * skew_lu_.solve(skew_S_ * ey);
 }
 
 void ShellProblem::update(const Eigen::VectorXd& du) {

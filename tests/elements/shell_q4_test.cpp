@@ -137,7 +137,7 @@ TEST(ShellQ4, RejectsOptionsOutOfRange) {
 // A one-layer linear section that adds a per-point initial membrane force read from the
 // committed slot (initial_stress * t) and records its input strain in the trial slot. It reports
 // is_linear() = false, so the element runs the local Newton loop.
-class RecordingSection final : public ShellSection {
+class ProbingSection final : public ShellSection {
  public:
   double thickness() const override { return base_.thickness(); }
   double shear_modulus() const override { return base_.shear_modulus(); }
@@ -163,7 +163,7 @@ class RecordingSection final : public ShellSection {
 
 TEST(ShellQ4, PassesEachGaussPointItsOwnHistoryAndRecordsConvergedStrains) {
   const ShellQ4 e(distorted_quad());
-  const RecordingSection section;
+  const ProbingSection section;
   std::vector<LayerState> committed(4), trial(4);
   for (int gp = 0; gp < 4; ++gp) {
     committed[gp].initial_stress = Eigen::Vector3d(10.0 * (gp + 1), -5.0 * gp, 2.0);
@@ -255,7 +255,7 @@ TEST(ShellQ4, ReportsNonFiniteSectionResponse) {
 }
 
 TEST(ShellQ4, RejectsHistorySpansThatAreTooShort) {
-  const RecordingSection section;
+  const ProbingSection section;
   std::vector<LayerState> committed(3), trial(4);
   Vec24 f;
   EXPECT_THROW(ShellQ4(flat_rectangle()).compute(Vec24::Zero(), section, committed, trial, f, nullptr),

@@ -1,4 +1,4 @@
-// The built-in section table: spellings, coverage, and the transcription of the data set
+// The built-in section table: spellings, coverage, and the copy of the data set
 // (waynemaranga/steelsnakes IPE.json / HE.json, commit 38bc16a3, CONF-2nd) checked against the
 // rows of /work/shared/references.md section 7 and against the properties computed from the
 // dimensions.
@@ -58,7 +58,7 @@ TEST(SectionTable, FindSectionReturnsTheDimensions) {
   EXPECT_EQ(s->weld_throat, 0.0);
 }
 
-TEST(SectionTable, TranscriptionAgreesWithReferenceRows) {
+TEST(SectionTable, CopiedRowsAgreeWithReferenceRows) {
   // references.md section 7 (CONF-2nd: steelsnakes data set; IPE 200/300 also steelcalculator.app,
   // HEA 300 also a DIN EN 10034 table): h, b, tw, tf, r [mm]; A cm^2, Iy cm^4, Wpl,y cm^3, Iz cm^4,
   // It cm^4, Iw dm^6 as tabulated.
@@ -89,7 +89,7 @@ TEST(SectionTable, TranscriptionAgreesWithReferenceRows) {
 }
 
 TEST(SectionTable, EveryRowAgreesWithPropertiesComputedFromItsDimensions) {
-  // A transcription check of all 66 rows: the properties computed from h, b, tw, tf, r must
+  // A copying check of all 66 rows: the properties computed from h, b, tw, tf, r must
   // reproduce the tabulated ones. The data set prints 3 significant figures (2 for the smallest
   // values), a rounding of up to 0.7 % (A = 7.6 cm^2 of IPE 80) and 1.5 % (Iw = 0.00035 dm^6 of
   // IPE 100); tolerances 1 % (A, Iy, Iz, Wpl,y, It) and 2 % (Iw) cover that.
