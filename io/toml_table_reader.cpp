@@ -85,6 +85,7 @@ const toml::node* TableReader::node(std::string_view key) {
 
 void TableReader::fail(std::string_view key, const std::string& found,
                        const std::string& expected) const {
+  if (found == "no value") throw_if_misspelt(key);
   throw InputError(file_, line_of(key), key_path(key), found, expected);
 }
 
@@ -96,6 +97,21 @@ std::optional<double> TableReader::optional_number(std::string_view key) {
 
 double TableReader::number(std::string_view key, double fallback) {
   return optional_number(key).value_or(fallback);
+}
+
+void TableReader::throw_if_misspelt(std::string_view key) const {
+  // A misspelt required key shows up as a missing one: name the misspelling instead.
+  if (table_ != nullptr) {
+    const std::vector<std::string> wanted{std::string(key)};
+    for (auto&& [k, v] : *table_) {
+      const std::string name(k.str());
+      if (std::find(known_.begin(), known_.end(), name) != known_.end()) continue;
+      if (nearest_name(name, wanted).empty()) continue;
+      const int line = k.source().begin.line > 0 ? static_cast<int>(k.source().begin.line) : node_line(v);
+      throw InputError(file_, line, key_path(name), "an unknown key " + quote(name),
+                       "a known key (did you mean " + quote(std::string(key)) + "?)");
+    }
+  }
 }
 
 double TableReader::required_number(std::string_view key, std::string_view what) {

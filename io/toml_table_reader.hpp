@@ -84,6 +84,9 @@ class TableReader {
   const toml::table* table_;
   std::string path_;
   int line_;
+  /// Throws the unknown-key error of a key in the table that misspells `key` (a missing required
+  /// key is usually a typo); returns when there is none.
+  void throw_if_misspelt(std::string_view key) const;
   std::vector<std::string> known_;
 };
 

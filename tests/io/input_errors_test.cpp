@@ -257,3 +257,22 @@ TEST(InputErrors, OtherCaseFileRulesNameTheirKeys) {
 
 }  // namespace
 }  // namespace rotcap
+
+namespace rotcap {
+namespace {
+// A misspelt REQUIRED key must be named as the unknown key it is, not reported as missing.
+TEST(InputErrors, MisspeltRequiredKeyIsNamedNotReportedMissing) {
+  const std::string text =
+      "[section]\ndepth = 300.0\nflange_width = 150.0\nflange_thickness = 10.7\nweb_thickness = 7.1\n"
+      "[steel]\nfy = 355.0\nfu = 490.0\n[member]\nsetup = \"cantilever\"\nlenght = 1500.0\n";
+  try {
+    parse_case_text(text, "typo.toml");
+    FAIL() << "no InputError";
+  } catch (const InputError& e) {
+    EXPECT_EQ(e.key(), "member.lenght") << e.what();
+    EXPECT_NE(std::string(e.what()).find("did you mean \"length\""), std::string::npos) << e.what();
+    EXPECT_EQ(e.line(), 11);
+  }
+}
+}  // namespace
+}  // namespace rotcap
