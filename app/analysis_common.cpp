@@ -1,5 +1,8 @@
 #include "app/analysis_common.hpp"
 
+#include "app/commands.hpp"
+#include "app/logging.hpp"
+
 namespace rotcap::app {
 
 PathOptions path_options(const AnalysisInput& a) {
@@ -28,6 +31,23 @@ ElementResults snapshot_results(const ShellProblem& problem) {
     r.surfaces.push_back(s.surfaces);
   }
   return r;
+}
+
+nlohmann::json solver_summary(const PathSummary& ps, const ShellProblem& problem, const ShellModel& model,
+                              double wall) {
+  return {{"steps", ps.steps}, {"iterations", ps.iterations}, {"cutbacks", ps.cutbacks},
+          {"iterations_per_step", ps.steps ? double(ps.iterations) / ps.steps : 0.0},
+          {"factorisations", problem.factorisations()}, {"assembly_s", problem.assembly_seconds()},
+          {"factorisation_s", problem.factorisation_seconds()}, {"wall_s", wall}, {"free_dofs", problem.size()},
+          {"nodes", model.node_count()}, {"elements", model.element_count()}};
+}
+
+int finish_path(const PathSummary& ps, const std::string& stop_reason, double wall) {
+  log_info("stopped: " + stop_reason + " (" + ps.message + "); " + std::to_string(ps.steps) + " steps, " +
+           std::to_string(ps.iterations) + " iterations, " + std::to_string(ps.cutbacks) + " cut-backs, " +
+           std::to_string(wall) + " s");
+  const bool early = ps.status == PathStatus::StepTooSmall || ps.status == PathStatus::EvaluationFailed;
+  return early ? kExitStoppedEarly : kExitOk;
 }
 
 }  // namespace rotcap::app

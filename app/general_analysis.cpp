@@ -199,16 +199,9 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   summary["message"] = ps.message;
   summary["load_factor_final"] = ps.load_factor;
   summary["load_factor_max"] = lambda_max;
-  summary["solver"] = {{"steps", ps.steps}, {"iterations", ps.iterations}, {"cutbacks", ps.cutbacks},
-                       {"factorisations", problem.factorisations()},
-                       {"assembly_s", problem.assembly_seconds()},
-                       {"factorisation_s", problem.factorisation_seconds()}, {"wall_s", wall}};
+  summary["solver"] = solver_summary(ps, problem, model, wall);
   recorder.write_summary(summary);
-  log_info("stopped: " + stop_reason + " (" + ps.message + "); " + std::to_string(ps.steps) + " steps, " +
-           std::to_string(ps.iterations) + " iterations, " + std::to_string(ps.cutbacks) + " cut-backs, " +
-           std::to_string(wall) + " s");
-  const bool early = ps.status == PathStatus::StepTooSmall || ps.status == PathStatus::EvaluationFailed;
-  return early ? kExitStoppedEarly : kExitOk;
+  return finish_path(ps, stop_reason, wall);
 }
 
 }  // namespace rotcap::app

@@ -178,18 +178,9 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   summary.update(results.json);
   summary["stop_reason"] = stop_reason;
   summary["message"] = ps.message;
-  summary["solver"] = {{"steps", ps.steps}, {"iterations", ps.iterations}, {"cutbacks", ps.cutbacks},
-                       {"iterations_per_step", ps.steps ? double(ps.iterations) / ps.steps : 0.0},
-                       {"factorisations", problem.factorisations()}, {"assembly_s", problem.assembly_seconds()},
-                       {"factorisation_s", problem.factorisation_seconds()}, {"wall_s", wall},
-                       {"free_dofs", problem.size()}, {"nodes", model.node_count()},
-                       {"elements", model.element_count()}};
+  summary["solver"] = solver_summary(ps, problem, model, wall);
   recorder.write_summary(summary);
-  log_info("stopped: " + stop_reason + " (" + ps.message + "); " + std::to_string(ps.steps) + " steps, " +
-           std::to_string(ps.iterations) + " iterations, " + std::to_string(ps.cutbacks) + " cut-backs, " +
-           std::to_string(wall) + " s");
-  const bool early = ps.status == PathStatus::StepTooSmall || ps.status == PathStatus::EvaluationFailed;
-  return early ? kExitStoppedEarly : kExitOk;
+  return finish_path(ps, stop_reason, wall);
 }
 
 }  // namespace rotcap::app
