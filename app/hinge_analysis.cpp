@@ -2,6 +2,7 @@
 
 #include "app/analysis_common.hpp"
 #include "app/commands.hpp"
+#include "app/hinge_laws_stage.hpp"
 #include "app/hinge_stages.hpp"
 #include "app/logging.hpp"
 #include "app/run_recorder.hpp"
@@ -180,6 +181,12 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   summary["message"] = ps.message;
   summary["solver"] = solver_summary(ps, problem, model, wall);
   recorder.write_summary(summary);
+  // report.html once more, now that the summary holds the stop reason and solver statistics.
+  try {
+    report_hinge_laws(input, hinge, curve, read_final_state(folder / "final_state.json"), summary, folder);
+  } catch (const std::exception& e) {
+    log_warn(std::string("report.html not remade: ") + e.what());
+  }
   return finish_path(ps, stop_reason, wall);
 }
 

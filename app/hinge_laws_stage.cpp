@@ -75,11 +75,14 @@ json compare(const NamedLaw& law, const std::vector<MomentRotationPoint>& pts, c
   }
   LawComparisonOptions co;
   co.fraction = 0.05;
-  co.from_theta = theta_p;
+  // (a), (b) have a sharp knee at theta_p that a real section rounds off: compared from 2 theta_p;
+  // (c) is smooth and compared from theta_p.
+  const double from = law.key == "moment_curvature" ? 1.0 : 2.0;
+  co.from_theta = from * theta_p;
   const std::optional<double> below = theta_first_below_law(pts, law.curve, co);
   j["theta_first_below_5pct_mrad"] = opt(below, 1e3);
   j["theta_first_below_5pct_over_theta_p"] = opt(below, 1.0 / theta_p);
-  j["compared_from_theta_over_theta_p"] = 1.0;
+  j["compared_from_theta_over_theta_p"] = from;
   // Largest |M_shell - M_law| / Mp over the shell points with theta <= 5 theta_p inside the law's range.
   double worst = 0.0;
   for (const MomentRotationPoint& p : pts)
@@ -172,7 +175,8 @@ StageReport report_hinge_laws(const CaseInput& input, const HingeCase& hinge, co
   const HingeCurveResult r = extract_hinge_curve(pts, mp, hinge.mel, hinge.theta_p_beam);
   const double k_el = r.k_el.value_or(mp / hinge.theta_p_beam);
   const double theta_p = mp / k_el;
-  const double theta_last = std::max(pts.back().theta, 2.0 * theta_p);
+  // Laws (a), (b) are drawn and compared over the shell run and a margin beyond it.
+  const double theta_last = std::max(1.5 * pts.back().theta, 2.0 * theta_p);
   const double E = input.steel.E;
   const ISection& s = hinge.section;
   // 1. The laws.
@@ -198,9 +202,13 @@ StageReport report_hinge_laws(const CaseInput& input, const HingeCase& hinge, co
     MomentCurvatureOptions mo;
     mo.axial_force = -hinge.zone.axial_force;
     mk = moment_curvature(plate_model_fibres(s, pattern), fibre, mo);
-    laws.push_back({"moment_curvature", "(c) moment-curvature integration", "#d95f02", LineDash::solid,
-                    integrate_member_rotation(*mk, hinge.zone.setup, hinge.zone.span, shear_span),
-                    mk->message + (pattern.kind() == ResidualStressKind::none ? "" : "; residual stresses: " + pattern.description())});
+    // The integration is beam theory (no shear deformation, rigid support); its elastic part is
+    // matched to the shell's measured slope: theta = theta_int + M (1/k_el - 1/k_beam), k_beam = Mp / theta_p_beam.
+    std::vector<MomentRotationPoint> integrated = integrate_member_rotation(*mk, hinge.zone.setup, hinge.zone.span, shear_span);
+    const double extra_compliance = 1.0 / k_el - hinge.theta_p_beam / mp;
+    for (MomentRotationPoint& p : integrated) p.theta += p.moment * extra_compliance;
+    laws.push_back({"moment_curvature", "(c) moment-curvature integration", "#d95f02", LineDash::solid, integrated,
+                    mk->message + fmt("; elastic compliance matched to the shell (k_el / k_beam = %.4f)", k_el * hinge.theta_p_beam / mp) + (pattern.kind() == ResidualStressKind::none ? "" : "; residual stresses: " + pattern.description())});
   }
   // 2. The fitted multilinear law.
   const FittedHingeLaw fit = fit_hinge_law(pts, mp, k_el);
@@ -296,7 +304,7 @@ StageReport report_hinge_laws(const CaseInput& input, const HingeCase& hinge, co
   {
     ReportSection sec{"Inputs", {}, {}, {}, {}};
     std::vector<std::pair<std::string, std::string>> kv;
-    flatten(to_json(input), "", kv);
+    flatten(summary.contains("input") ? summary.at("input") : to_json(input), "", kv);
     sec.tables.push_back(key_value_table("case file (defaults filled in)", kv));
     page.sections.push_back(sec);
   }

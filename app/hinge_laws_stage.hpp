@@ -7,7 +7,8 @@
 //    rotation;
 //  - summary.json keys "laws" (per law: its moment at the shell's theta at M_max and at theta_u,
 //    the relative error (M_shell - M_law) / M_law there, the first rotation at which the shell
-//    falls more than 5 % below the law, compared from theta_p on, and for (c) the largest
+//    falls more than 5 % below the law (compared from 2 theta_p for (a), (b), whose knee is sharp,
+//    from theta_p for (c)), and for (c) the largest
 //    |M_shell - M_law| / Mp up to 5 theta_p) and "fitted_law" (its points, the largest deviation,
 //    the 3 % bound and whether it holds);
 //  - hinge_law.csv: the fitted law, columns point, kind, theta_plastic_mrad, moment_kNm,
