@@ -45,6 +45,8 @@ HingeCase build_hinge_case(const CaseInput& input) {
   spec.aspect = input.mesh.aspect;
   spec.axial_load_ratio = input.member.axial_load_ratio;
   spec.fy = input.steel.fy.value_or(0.0);
+  spec.cantilever_support = input.member.support == SupportKind::symmetry ? CantileverSupport::symmetry
+                                                                          : CantileverSupport::fixed;
   try {
     hc.zone = build_hinge_zone(spec);
     hc.real = real_section_properties(hc.section);

@@ -25,6 +25,7 @@ json steel(const SteelInput& s) {
 json member(const MemberInput& m) {
   json j = {{"setup", enum_name(m.setup)}, {"length", m.length}, {"axial_load_ratio", m.axial_load_ratio}};
   if (m.setup == Setup::four_point) j["load_spacing"] = optional(m.load_spacing);
+  if (m.setup == Setup::cantilever) j["support"] = enum_name(m.support);
   if (m.stiffeners == StiffenerLayout::positions)
     j["stiffeners"] = m.stiffener_positions;
   else

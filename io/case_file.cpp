@@ -225,6 +225,10 @@ void read_member(TableReader r, CaseInput& c) {
   r.check("axial_load_ratio", m.axial_load_ratio, !beam || m.axial_load_ratio == 0.0,
           "0 for setup = " + quote(enum_name(m.setup)) +
               " (an axial force needs the rigid end sections of cantilever or uniform_moment)");
+  if (m.setup == Setup::cantilever)
+    m.support = read_choice(r, "support", m.support);
+  else
+    r.forbid("support", "no support with setup = " + quote(enum_name(m.setup)) + " (cantilever only)");
   read_stiffeners(r, m);
   if (m.stiffeners == StiffenerLayout::none) {
     r.forbid("stiffener_thickness", "no stiffener_thickness with stiffeners = \"none\"");

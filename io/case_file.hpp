@@ -40,6 +40,9 @@
 //         axial_load_ratio    number, N/N_pl, compression > 0     0              0 <= n < 1;
 //                                                                                0 for three_point
 //                                                                                and four_point
+//         support             "fixed" | "symmetry" (cantilever only): the support section fully
+//                             fixed, or a symmetry plane (ux, ry, rz at all nodes, uy and uz on the
+//                             web line)                            "fixed"
 //         stiffeners          "supports_and_loads" | "none" | [x, ...] [mm]
 //                                                                 "supports_and_loads"
 //                                                                                0 <= x <= length,

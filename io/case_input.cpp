@@ -8,6 +8,7 @@ const std::string kModelKind[] = {"generated", "general"};
 const std::string kSteelCurve[] = {"elastic", "elastic_plastic", "bilinear", "quadlinear", "table"};
 const std::string kSetup[] = {"cantilever", "three_point", "four_point", "uniform_moment"};
 const std::string kStiffenerLayout[] = {"supports_and_loads", "none", "positions"};
+const std::string kSupportKind[] = {"fixed", "symmetry"};
 const std::string kFlange[] = {"both", "top", "bottom"};
 const std::string kLocalImperfection[] = {"none", "buckling_mode", "half_sine"};
 const std::string kResidualPattern[] = {"none", "hot_rolled", "welded"};
@@ -19,6 +20,7 @@ template <> std::span<const std::string> enum_names<ModelKind>() { return kModel
 template <> std::span<const std::string> enum_names<SteelCurve>() { return kSteelCurve; }
 template <> std::span<const std::string> enum_names<Setup>() { return kSetup; }
 template <> std::span<const std::string> enum_names<StiffenerLayout>() { return kStiffenerLayout; }
+template <> std::span<const std::string> enum_names<SupportKind>() { return kSupportKind; }
 template <> std::span<const std::string> enum_names<Flange>() { return kFlange; }
 template <> std::span<const std::string> enum_names<LocalImperfection>() { return kLocalImperfection; }
 template <> std::span<const std::string> enum_names<ResidualPattern>() { return kResidualPattern; }

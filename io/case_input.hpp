@@ -21,6 +21,7 @@ enum class ModelKind { generated, general };  ///< [section]+[member], or [model
 enum class SteelCurve { elastic, elastic_plastic, bilinear, quadlinear, table };
 enum class Setup { cantilever, three_point, four_point, uniform_moment };
 enum class StiffenerLayout { supports_and_loads, none, positions };
+enum class SupportKind { fixed, symmetry };  ///< cantilever support section
 enum class Flange { both, top, bottom };
 enum class LocalImperfection { none, buckling_mode, half_sine };
 enum class ResidualPattern { none, hot_rolled, welded };
@@ -34,6 +35,7 @@ template <> std::span<const std::string> enum_names<ModelKind>();
 template <> std::span<const std::string> enum_names<SteelCurve>();
 template <> std::span<const std::string> enum_names<Setup>();
 template <> std::span<const std::string> enum_names<StiffenerLayout>();
+template <> std::span<const std::string> enum_names<SupportKind>();
 template <> std::span<const std::string> enum_names<Flange>();
 template <> std::span<const std::string> enum_names<LocalImperfection>();
 template <> std::span<const std::string> enum_names<ResidualPattern>();
@@ -85,6 +87,7 @@ struct MemberInput {
   double length = 0.0;                ///< cantilever: support to load; beams: span [mm]
   std::optional<double> load_spacing; ///< four_point only: distance between the loads [mm]
   double axial_load_ratio = 0.0;      ///< N / N_pl, compression positive, 0 <= n < 1
+  SupportKind support = SupportKind::fixed;  ///< cantilever only: fully fixed or a symmetry plane
   StiffenerLayout stiffeners = StiffenerLayout::supports_and_loads;
   std::vector<double> stiffener_positions;   ///< StiffenerLayout::positions: x [mm], ascending
   std::optional<double> stiffener_thickness; ///< [mm]; default tf

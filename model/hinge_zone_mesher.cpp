@@ -348,7 +348,20 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
   switch (spec.setup) {
     case HingeSetup::cantilever: {
       m.groups["support"] = section_group(g, 0);
-      m.supports.push_back(support("support", {Dof::ux, Dof::uy, Dof::uz, Dof::rx, Dof::ry, Dof::rz}));
+      if (spec.cantilever_support == CantileverSupport::fixed) {
+        m.supports.push_back(support("support", {Dof::ux, Dof::uy, Dof::uz, Dof::rx, Dof::ry, Dof::rz}));
+      } else {
+        // Symmetry plane of a three-point-bending specimen: ux, ry, rz held at every node; the web
+        // line carries the shear and the lateral restraint (uy, uz); the flanges may contract.
+        m.supports.push_back(support("support", {Dof::ux, Dof::ry, Dof::rz}));
+        NodeGroup web;
+        web.dimension = 1;
+        for (int mm = 0; mm <= g.nw; ++mm) web.nodes.push_back(g.web(0, mm));
+        for (int mm = 0; mm < g.nw; ++mm) web.cells.push_back({g.web(0, mm), g.web(0, mm + 1)});
+        std::sort(web.nodes.begin(), web.nodes.end());
+        m.groups["support_web"] = web;
+        m.supports.push_back(support("support_web", {Dof::uy, Dof::uz}));
+      }
       m.groups["end_section"] = section_group(g, last);
       const int ref = add_reference("load_point", L);
       m.rigid_ties.push_back({"end_section", ref});

@@ -93,6 +93,11 @@ struct LateralBrace {
   RestrainedFlange flange = RestrainedFlange::both;
 };
 
+/// The cantilever's support section: fully fixed (all DOFs of all its nodes), or a symmetry plane
+/// (ux, ry, rz held at every node, uy and uz on the web line; the flanges may contract sideways),
+/// as at midspan of a three-point-bending specimen of twice the length.
+enum class CantileverSupport { fixed, symmetry };
+
 struct HingeZoneSpec {
   ISection section;
   HingeSetup setup = HingeSetup::cantilever;
@@ -107,6 +112,7 @@ struct HingeZoneSpec {
   double aspect = 1.0;        ///< element length / flange element width in the hinge region, > 0
   double axial_load_ratio = 0.0;  ///< N / (A_plate fy), 0 <= n < 1; cantilever, uniform_moment only
   double fy = 355.0;          ///< [MPa] > 0, for Mp and N
+  CantileverSupport cantilever_support = CantileverSupport::fixed;
 };
 
 /// How the hinge rotation follows from the displacements: theta = sum_i weights[i] * u(nodes[i], dof).

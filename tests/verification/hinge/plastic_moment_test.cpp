@@ -102,3 +102,44 @@ TEST(HingePlasticMoment, CantileverHoldsPlateauBetweenMpAndThePlaneStrainBound) 
 
 }  // namespace
 }  // namespace rotcap::testing
+
+namespace rotcap::testing {
+namespace {
+
+// The same cantilever with `support = "symmetry"`: the support section is a symmetry plane (ux, ry,
+// rz held at every node, the web line holding uy and uz) and the flanges contract freely. The band
+// [0.98, 1.02] Mp is checked up to 4 theta_p, the rotation a plastic hinge with R = 3 must supply
+// (common practice, see references.md section 6); beyond it the elastic-perfectly plastic flanges,
+// free at the support, begin to buckle plastically (zero tangent modulus) and the moment declines
+// slowly (measured: 0.974 Mp at 4.7 theta_p), which is printed, not asserted.
+TEST(HingePlasticMoment, CantileverOnASymmetryPlaneReachesAndHoldsMpTo4ThetaP) {
+  const HingeRun run = run_rotcap("run", hinge_case("plastic_stocky_symmetry.toml"), "plastic_stocky_symmetry");
+  ASSERT_EQ(run.exit_code, 0) << run.err;
+  const nlohmann::json s = read_json(run.results / "summary.json");
+  EXPECT_CLOSE(s["mp_kNm"].get<double>(), plate_mp() / 1e6, 1e-9, 0.0);
+  print_comparison("M_max / Mp (cantilever, symmetry-plane support)", 1.0, s["m_max_over_mp"].get<double>(),
+                   "Mp = fy Wpl,y of the plates, simple plastic theory");
+  EXPECT_CLOSE(s["m_max_over_mp"].get<double>(), 1.0, 0.02, 0.0);
+  const double theta_p = s["theta_p_mrad"].get<double>();
+  const CurveTable c = read_curve(run.results / "curve.csv");
+  const std::vector<double> m = c.values("m_over_mp"), t = c.values("rotation_mrad");
+  double first = -1.0, low = 1e9, high = 0.0;
+  for (std::size_t i = 0; i < m.size() && t[i] <= 4.0 * theta_p; ++i) {
+    if (first < 0.0 && m[i] >= 0.98) first = t[i];
+    if (first >= 0.0) {
+      low = std::min(low, m[i]);
+      high = std::max(high, m[i]);
+    }
+  }
+  std::printf("up to 4 theta_p = %.3f mrad: plateau from %.3f mrad, M/Mp in [%.4f, %.4f]; at the end (%.2f theta_p) "
+              "M/Mp = %.4f\n",
+              4.0 * theta_p, first, low, high, t.back() / theta_p, m.back());
+  ASSERT_GE(first, 0.0) << "M never reached 0.98 Mp";
+  EXPECT_GE(low, 0.98);
+  EXPECT_LE(high, 1.02);
+  EXPECT_GE(t.back(), 4.0 * theta_p);
+  std::printf("run time %.2f s (%d steps)\n", run.wall_s, s["solver"]["steps"].get<int>());
+}
+
+}  // namespace
+}  // namespace rotcap::testing
