@@ -45,11 +45,13 @@ int run(const std::string& command) {
   return WIFEXITED(status) ? WEXITSTATUS(status) : -1;
 }
 
-/// Runs a case once per test program and returns its results folder.
+/// Runs a case once per test program and returns its results folder. ctest runs every test in a
+/// process of its own, possibly at the same time, so the folder is named after the running test.
 fs::path results_of(const std::string& stem) {
   static std::map<std::string, fs::path> done;
   if (auto it = done.find(stem); it != done.end()) return it->second;
-  const fs::path out = fs::path(ROTCAP_LAWS_SCRATCH) / (stem + ".out");
+  const std::string test = ::testing::UnitTest::GetInstance()->current_test_info()->name();
+  const fs::path out = fs::path(ROTCAP_LAWS_SCRATCH) / (stem + "." + test + ".out");
   fs::remove_all(out);
   fs::create_directories(out.parent_path());
   const fs::path case_file = source_dir() / "tests/verification/laws/cases" / (stem + ".toml");
