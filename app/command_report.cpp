@@ -10,6 +10,7 @@
 // classification; the mechanics of the run are not repeated. Exit 2 for a folder that is not a
 // generated run's results.
 #include "app/commands.hpp"
+#include "io/atomic_file.hpp"
 #include "app/hinge_case.hpp"
 #include "app/hinge_laws_stage.hpp"
 #include "app/logging.hpp"
@@ -156,14 +157,7 @@ int command_report(const CommandOptions& options) {
   const StageReport laws = report_hinge_laws(input, hinge, curve, mesh, summary, folder);
   for (const auto& l : laws.log) log_info(l);
   summary.update(laws.json);
-  const fs::path part = folder / "summary.json.part";
-  {
-    std::ofstream out(part);
-    if (!out) throw OutputError(summary_file, "cannot write");
-    out << summary.dump(2) << "\n";
-    if (!out) throw OutputError(summary_file, "cannot write");
-  }
-  fs::rename(part, summary_file);
+  write_file_atomically(summary_file, summary.dump(2) + "\n");
   log_info("re-made curve.svg, hinge_law.csv, report.html and the law comparison in " + summary_file.string());
   return kExitOk;
 }

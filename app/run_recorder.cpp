@@ -1,4 +1,5 @@
 #include "app/run_recorder.hpp"
+#include "io/atomic_file.hpp"
 
 #include "io/input_error.hpp"
 
@@ -33,14 +34,7 @@ void RunRecorder::write_fields(int step, double time, const ShellModel& model, c
 }
 
 void RunRecorder::write_summary(const nlohmann::json& summary) const {
-  const fs::path file = folder_ / "summary.json";
-  const fs::path tmp = folder_ / "summary.json.tmp";
-  {
-    std::ofstream out(tmp);
-    if (!out) throw OutputError(tmp, "cannot write");
-    out << summary.dump(2) << "\n";
-  }
-  fs::rename(tmp, file);
+  write_file_atomically(folder_ / "summary.json", summary.dump(2) + "\n");
 }
 
 }  // namespace rotcap::app

@@ -1,8 +1,11 @@
 #include "io/pvd_collection.hpp"
 
+#include "io/atomic_file.hpp"
+
 #include "io/input_error.hpp"
 
 #include <cstdio>
+#include <sstream>
 #include <fstream>
 
 namespace rotcap {
@@ -37,26 +40,18 @@ void PvdCollection::add(double time, const std::filesystem::path& dataset) {
 }
 
 void PvdCollection::write() const {
-  const std::filesystem::path temporary = file_.string() + ".part";
-  {
-    std::ofstream out(temporary, std::ios::trunc);
-    if (!out) throw OutputError(file_, "cannot create " + temporary.string());
-    out << "<?xml version=\"1.0\"?>\n"
-        << "<VTKFile type=\"Collection\" version=\"0.1\" byte_order=\"LittleEndian\">\n"
-        << "  <Collection>\n";
-    char time[32];
-    for (const Entry& e : entries_) {
-      std::snprintf(time, sizeof time, "%.17g", e.time);
-      out << "    <DataSet timestep=\"" << time << "\" group=\"\" part=\"0\" file=\""
-          << xml_escape(e.file) << "\"/>\n";
-    }
-    out << "  </Collection>\n</VTKFile>\n";
-    out.flush();
-    if (!out) throw OutputError(file_, "writing " + temporary.string() + " failed");
+  std::ostringstream out;
+  out << "<?xml version=\"1.0\"?>\n"
+      << "<VTKFile type=\"Collection\" version=\"0.1\" byte_order=\"LittleEndian\">\n"
+      << "  <Collection>\n";
+  char time[32];
+  for (const Entry& e : entries_) {
+    std::snprintf(time, sizeof time, "%.17g", e.time);
+    out << "    <DataSet timestep=\"" << time << "\" group=\"\" part=\"0\" file=\""
+        << xml_escape(e.file) << "\"/>\n";
   }
-  std::error_code ec;
-  std::filesystem::rename(temporary, file_, ec);
-  if (ec) throw OutputError(file_, "renaming " + temporary.string() + " failed: " + ec.message());
+  out << "  </Collection>\n</VTKFile>\n";
+  write_file_atomically(file_, out.str());
 }
 
 }  // namespace rotcap

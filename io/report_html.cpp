@@ -1,4 +1,5 @@
 #include "io/report_html.hpp"
+#include "io/atomic_file.hpp"
 
 #include "io/input_error.hpp"
 #include "io/svg_plot.hpp"
@@ -99,16 +100,7 @@ std::string render_report_html(const ReportPage& page) {
 }
 
 void write_report_html(const ReportPage& page, const std::filesystem::path& file) {
-  const std::filesystem::path part = file.string() + ".part";
-  {
-    std::ofstream out(part, std::ios::binary);
-    if (!out) throw OutputError(file, "cannot create the report");
-    out << render_report_html(page);
-    if (!out) throw OutputError(file, "cannot write the report");
-  }
-  std::error_code ec;
-  std::filesystem::rename(part, file, ec);
-  if (ec) throw OutputError(file, "cannot rename the report: " + ec.message());
+  write_file_atomically(file, render_report_html(page));
 }
 
 std::string render_mesh_svg(const MeshPicture& m) {

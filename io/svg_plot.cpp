@@ -1,4 +1,5 @@
 #include "io/svg_plot.hpp"
+#include "io/atomic_file.hpp"
 
 #include "io/input_error.hpp"
 
@@ -530,18 +531,7 @@ std::string render_svg(const LinePlot& plot) {
 }
 
 void write_svg(const LinePlot& plot, const std::filesystem::path& file) {
-  const std::string svg = render_svg(plot);
-  const std::filesystem::path temporary = file.string() + ".part";
-  {
-    std::ofstream out(temporary, std::ios::binary | std::ios::trunc);
-    if (!out) throw OutputError(file, "cannot create " + temporary.string());
-    out << "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" << svg;
-    out.flush();
-    if (!out) throw OutputError(file, "writing " + temporary.string() + " failed");
-  }
-  std::error_code ec;
-  std::filesystem::rename(temporary, file, ec);
-  if (ec) throw OutputError(file, "renaming " + temporary.string() + " failed: " + ec.message());
+  write_file_atomically(file, "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n" + render_svg(plot));
 }
 
 }  // namespace rotcap
