@@ -19,7 +19,7 @@ namespace rotcap::app {
 
 int command_buckle(const CommandOptions& options) {
   // 1. The model and the number of modes.
-  const BuiltCase built = build_case(options.case_file);
+  const BuiltCase built = build_case(options.case_file, options.mesh_scale);
   const int n_modes = options.modes.value_or(built.input.buckling.modes);
   if (n_modes < 1)
     throw InputError(options.case_file, 0, "-n", std::to_string(n_modes), "a number of modes >= 1");

@@ -13,7 +13,7 @@ namespace rotcap::app {
 
 int command_check(const CommandOptions& options) {
   // 1. Read and validate the case (InputError -> exit 2 in main).
-  const BuiltCase built = build_case(options.case_file);
+  const BuiltCase built = build_case(options.case_file, options.mesh_scale);
   // 2. Derived data of a generated model (section, class, Mp, theta_p).
   for (const std::string& line : built.description) log_info(line);
   // 3. Model size and the factor's size from the symbolic analysis (no numeric work).

@@ -15,7 +15,7 @@ const char* const kCaution =
 
 int command_run(const CommandOptions& options) {
   // 1. Read, validate and build the model before anything is written.
-  const BuiltCase built = build_case(options.case_file);
+  const BuiltCase built = build_case(options.case_file, options.mesh_scale);
   if (built.hinge && built.input.analysis.control == Control::linear)
     throw InputError(options.case_file, 0, "analysis.control", "\"linear\"",
                      "\"arc_length\", \"displacement\" or \"load\" for a generated hinge-zone model");

@@ -22,6 +22,7 @@ struct CommandOptions {
   bool quiet = false;
   int threads = 0;                              ///< 0: OpenMP default
   std::optional<int> modes;                     ///< buckle -n
+  std::optional<double> mesh_scale;             ///< --mesh-scale (generated models only)
 };
 
 int command_check(const CommandOptions& options);

@@ -114,22 +114,14 @@ StageReport apply_residual_stresses(const CaseInput& input, const HingeCase& hin
   report.json["peak_compression_MPa"] = eq.peak_compression;
   report.json["relative_imbalance"] = eq.relative_imbalance;
   // Local stresses at the Gauss points of the perfect geometry (the pattern is a property of the
-  // section, not of the imperfect coordinates), constant through the thickness.
+  // section, not of the imperfect coordinates), constant through the thickness, each the mean over
+  // its quadrant of the element (model/residual_stress.hpp).
   const ShellModel& perfect = hinge.zone.model;
   std::vector<std::array<Eigen::Vector3d, 4>> at_gp(model.elements.size());
-  // Gauss point k of ShellQ4 sits at (xi_k, eta_k) / sqrt(3), node k at the corner (xi_k, eta_k).
-  const double node_xi[4] = {-1, 1, 1, -1}, node_eta[4] = {-1, -1, 1, 1};
-  const double g = 1.0 / std::sqrt(3.0);
   for (int e = 0; e < model.element_count(); ++e) {
     Eigen::Matrix<double, 3, 4> X;
     for (int a = 0; a < 4; ++a) X.col(a) = perfect.nodes[perfect.elements[e].nodes[a]];
-    const Eigen::Matrix3d axes = ShellFrame::of(X).rotation;
-    for (int gp = 0; gp < 4; ++gp) {
-      Eigen::Vector3d p = Eigen::Vector3d::Zero();
-      for (int a = 0; a < 4; ++a)
-        p += 0.25 * (1 + g * node_xi[gp] * node_xi[a]) * (1 + g * node_eta[gp] * node_eta[a]) * X.col(a);
-      at_gp[e][gp] = local_residual_stress(pattern, perfect, e, p, axes);
-    }
+    at_gp[e] = gauss_point_residual_stresses(pattern, perfect, e, ShellFrame::of(X).rotation);
   }
   problem.set_initial_stress([&](int e, int gp, int) { return at_gp[e][gp]; });
   return report;

@@ -18,6 +18,11 @@ void add_common(CLI::App* cmd, rotcap::app::CommandOptions& o, bool with_case, b
     cmd->add_option("-o,--output", o.output, "output folder (default: <case stem>.out next to the case file)");
     cmd->add_flag("--overwrite", o.overwrite, "replace the results in an existing output folder");
   }
+  if (with_case || with_output)
+    cmd->add_option("--mesh-scale", o.mesh_scale,
+                    "multiply [mesh] flange_elements and web_elements of a generated model by this factor "
+                    "(mesh study; flange rounded to even, both >= 4)")
+        ->check(CLI::Range(0.25, 4.0));
   cmd->add_option("--threads", o.threads, "OpenMP threads for element loops (0: all cores)")->check(CLI::NonNegativeNumber);
   cmd->add_flag("--quiet", o.quiet, "print warnings and errors only");
 }

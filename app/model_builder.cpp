@@ -4,13 +4,38 @@
 #include "io/general_model.hpp"
 #include "io/input_error.hpp"
 
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
 #include <stdexcept>
 
 namespace rotcap::app {
 
-BuiltCase build_case(const std::filesystem::path& case_file) {
+namespace {
+
+/// The scaled counts of --mesh-scale; returns the log line.
+std::string scale_mesh(MeshInput& mesh, double factor) {
+  const int flange = std::max(4, 2 * static_cast<int>(std::lround(0.5 * factor * mesh.flange_elements)));
+  const int web = std::max(4, static_cast<int>(std::lround(factor * mesh.web_elements)));
+  char line[160];
+  std::snprintf(line, sizeof line, "mesh scaled by %g (--mesh-scale): flange_elements %d -> %d, web_elements %d -> %d",
+                factor, mesh.flange_elements, flange, mesh.web_elements, web);
+  mesh.flange_elements = flange;
+  mesh.web_elements = web;
+  return line;
+}
+
+}  // namespace
+
+BuiltCase build_case(const std::filesystem::path& case_file, std::optional<double> mesh_scale) {
   BuiltCase built;
   built.input = read_case_file(case_file);
+  if (mesh_scale && built.input.kind == ModelKind::general)
+    throw InputError(case_file, 0, "--mesh-scale", "a general model ([model] mesh = \"" +
+                     built.input.model.mesh.string() + "\")",
+                     "a generated hinge-zone model ([section], [member]); refine a mesh file in its mesher");
+  std::string scaled;
+  if (mesh_scale) scaled = scale_mesh(built.input.mesh, *mesh_scale);
   if (built.input.kind == ModelKind::general) {
     built.model = build_general_model(built.input);
     try {
@@ -24,6 +49,7 @@ BuiltCase build_case(const std::filesystem::path& case_file) {
   built.hinge = build_hinge_case(built.input);
   built.model = built.hinge->zone.model;
   built.description = built.hinge->description;
+  if (!scaled.empty()) built.description.insert(built.description.begin(), scaled);
   return built;
 }
 

@@ -20,6 +20,9 @@ struct BuiltCase {
   std::vector<std::string> description;  ///< derived data for `check` and the log
 };
 
-BuiltCase build_case(const std::filesystem::path& case_file);
+/// mesh_scale (the --mesh-scale option): [mesh] flange_elements and web_elements of a generated
+/// model times the factor, rounded to the nearest even / integer count and at least 4, recorded in
+/// the description (and so in run.log); InputError for a general model, whose mesh is its own.
+BuiltCase build_case(const std::filesystem::path& case_file, std::optional<double> mesh_scale = std::nullopt);
 
 }  // namespace rotcap::app

@@ -32,6 +32,12 @@ PieceMoments moments(const P& p) {
   return {m0, m1, m2};
 }
 
+/// sigma_R e_x e_x^T in the frame (e1, e2): components c = e1 . e_x, s = e2 . e_x.
+Eigen::Vector3d rotate_into_frame(double sigma, const Eigen::Matrix3d& axes) {
+  const double c = axes(0, 0), sn = axes(0, 1);
+  return Eigen::Vector3d(c * c, sn * sn, c * sn) * sigma;
+}
+
 }  // namespace
 
 std::optional<PlateRegion> plate_region(std::string_view name) {
@@ -110,15 +116,31 @@ std::string ResidualStressPattern::description() const {
   return "";
 }
 
-double ResidualStressPattern::evaluate(const std::vector<Piece>& plate, double s) const {
+double ResidualStressPattern::clamp_to_plate(const std::vector<Piece>& plate, double s) const {
   const double lo = plate.front().s0, hi = plate.back().s1, tol = options_.edge_tolerance * (hi - lo);
   if (s < lo - tol || s > hi + tol || !std::isfinite(s))
     throw std::out_of_range("residual stress: plate coordinate " + num(s) + " mm lies outside [" + num(lo) + ", " +
                             num(hi) + "] mm by more than " + num(tol) + " mm");
-  s = std::clamp(s, lo, hi);
+  return std::clamp(s, lo, hi);
+}
+
+double ResidualStressPattern::evaluate(const std::vector<Piece>& plate, double s) const {
+  s = clamp_to_plate(plate, s);
   const auto it = std::find_if(plate.begin(), plate.end(), [&](const Piece& p) { return s <= p.s1; });
   const Piece& p = it == plate.end() ? plate.back() : *it;
   return p.c0 + s * (p.c1 + s * p.c2);
+}
+
+double ResidualStressPattern::mean(const std::vector<Piece>& plate, double s0, double s1) const {
+  s0 = clamp_to_plate(plate, s0);
+  s1 = clamp_to_plate(plate, s1);
+  if (s1 - s0 <= 1e-12 * (plate.back().s1 - plate.front().s0)) return evaluate(plate, 0.5 * (s0 + s1));
+  double integral = 0.0;
+  for (const Piece& p : plate) {
+    const double a = std::max(p.s0, s0), b = std::min(p.s1, s1);
+    if (b > a) integral += moments(Piece{a, b, p.c0, p.c1, p.c2}).m0;
+  }
+  return integral / (s1 - s0);
 }
 
 double ResidualStressPattern::longitudinal(PlateRegion region, double y_or_z) const {
@@ -127,6 +149,19 @@ double ResidualStressPattern::longitudinal(PlateRegion region, double y_or_z) co
     case PlateRegion::top_flange:
     case PlateRegion::bottom_flange: return evaluate(flange_, y_or_z);
     case PlateRegion::web: return evaluate(web_, y_or_z);
+    case PlateRegion::stiffener: return 0.0;
+  }
+  return 0.0;
+}
+
+double ResidualStressPattern::mean_longitudinal(PlateRegion region, double s0, double s1) const {
+  if (!(s0 <= s1))
+    throw std::invalid_argument("residual stress: mean over [" + num(s0) + ", " + num(s1) + "] mm: expected s0 <= s1");
+  if (kind_ == ResidualStressKind::none) return 0.0;
+  switch (region) {
+    case PlateRegion::top_flange:
+    case PlateRegion::bottom_flange: return mean(flange_, s0, s1);
+    case PlateRegion::web: return mean(web_, s0, s1);
     case PlateRegion::stiffener: return 0.0;
   }
   return 0.0;
@@ -179,14 +214,12 @@ Eigen::Vector3d local_residual_stress(const ResidualStressPattern& pattern, Plat
                                       const Eigen::Vector3d& point, const Eigen::Matrix3d& axes) {
   if (region == PlateRegion::stiffener || pattern.kind() == ResidualStressKind::none) return Eigen::Vector3d::Zero();
   const double s = region == PlateRegion::web ? point.z() : point.y();
-  const double sigma = pattern.longitudinal(region, s);
-  // sigma e_x e_x^T in the frame (e1, e2): components c = e1 . e_x, s = e2 . e_x.
-  const double c = axes(0, 0), sn = axes(0, 1);
-  return Eigen::Vector3d(c * c, sn * sn, c * sn) * sigma;
+  return rotate_into_frame(pattern.longitudinal(region, s), axes);
 }
 
-Eigen::Vector3d local_residual_stress(const ResidualStressPattern& pattern, const ShellModel& model, int element,
-                                      const Eigen::Vector3d& point, const Eigen::Matrix3d& axes) {
+namespace {
+
+PlateRegion region_of(const ShellModel& model, int element) {
   if (element < 0 || element >= model.element_count())
     throw std::out_of_range("residual stress: element " + std::to_string(element) + " not in the model (" +
                             std::to_string(model.element_count()) + " elements)");
@@ -197,7 +230,47 @@ Eigen::Vector3d local_residual_stress(const ResidualStressPattern& pattern, cons
   if (!region)
     throw std::invalid_argument("residual stress: element " + std::to_string(element) + " lies in region \"" + name +
                                 "\"; patterns apply to top_flange, bottom_flange, web and stiffener only");
-  return local_residual_stress(pattern, *region, point, axes);
+  return *region;
+}
+
+}  // namespace
+
+std::array<Eigen::Vector3d, 4> gauss_point_residual_stresses(const ResidualStressPattern& pattern, PlateRegion region,
+                                                             const Eigen::Matrix<double, 3, 4>& corners,
+                                                             const Eigen::Matrix3d& axes) {
+  std::array<Eigen::Vector3d, 4> out;
+  out.fill(Eigen::Vector3d::Zero());
+  if (region == PlateRegion::stiffener || pattern.kind() == ResidualStressKind::none) return out;
+  const int coordinate = region == PlateRegion::web ? 2 : 1;  // the plate coordinate: z on the web, y on a flange
+  const double node_xi[4] = {-1, 1, 1, -1}, node_eta[4] = {-1, -1, 1, 1};
+  // s(xi, eta) by the bilinear map of the corners' plate coordinate.
+  auto s_at = [&](double xi, double eta) {
+    double s = 0.0;
+    for (int a = 0; a < 4; ++a) s += 0.25 * (1 + xi * node_xi[a]) * (1 + eta * node_eta[a]) * corners(coordinate, a);
+    return s;
+  };
+  for (int k = 0; k < 4; ++k) {
+    // The quadrant [0, xi_k] x [0, eta_k]: s is bilinear, so its range is spanned by the corners.
+    const double s[4] = {s_at(0, 0), s_at(node_xi[k], 0), s_at(node_xi[k], node_eta[k]), s_at(0, node_eta[k])};
+    const double s0 = *std::min_element(s, s + 4), s1 = *std::max_element(s, s + 4);
+    out[static_cast<std::size_t>(k)] = rotate_into_frame(pattern.mean_longitudinal(region, s0, s1), axes);
+  }
+  return out;
+}
+
+Eigen::Vector3d local_residual_stress(const ResidualStressPattern& pattern, const ShellModel& model, int element,
+                                      const Eigen::Vector3d& point, const Eigen::Matrix3d& axes) {
+  return local_residual_stress(pattern, region_of(model, element), point, axes);
+}
+
+std::array<Eigen::Vector3d, 4> gauss_point_residual_stresses(const ResidualStressPattern& pattern,
+                                                             const ShellModel& model, int element,
+                                                             const Eigen::Matrix3d& axes) {
+  const PlateRegion region = region_of(model, element);
+  Eigen::Matrix<double, 3, 4> corners;
+  for (int a = 0; a < 4; ++a)
+    corners.col(a) = model.nodes[static_cast<std::size_t>(model.elements[static_cast<std::size_t>(element)].nodes[a])];
+  return gauss_point_residual_stresses(pattern, region, corners, axes);
 }
 
 }  // namespace rotcap

@@ -3,5 +3,7 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 bash scripts/build.sh
-export OPENBLAS_NUM_THREADS=1
+# One BLAS and one OpenMP thread per test process: ctest runs nproc tests at once, and the runs
+# are then reproducible to the bit whatever the machine's core count.
+export OPENBLAS_NUM_THREADS=1 OMP_NUM_THREADS=1
 ctest --test-dir build --output-on-failure -j "$(nproc)" "$@"

@@ -52,7 +52,7 @@ inline std::string read_text(const std::filesystem::path& path) {
 /// files in `scratch`.
 inline CommandOutcome run_rotcap(const std::string& args, const std::filesystem::path& scratch) {
   const std::filesystem::path out = scratch / "stdout.txt", err = scratch / "stderr.txt";
-  const std::string command = std::string("'") + ROTCAP_EXE + "' " + args + " >'" + out.string() + "' 2>'" +
+  const std::string command = std::string("OPENBLAS_NUM_THREADS=1 '") + ROTCAP_EXE + "' " + args + " >'" + out.string() + "' 2>'" +
                               err.string() + "'";
   const int status = std::system(command.c_str());
   CommandOutcome r;

@@ -5,6 +5,8 @@
 #include "tests/test_support.hpp"
 
 #include <Eigen/Geometry>
+#include <cstdio>
+#include <map>
 #include <random>
 #include <stdexcept>
 
@@ -168,6 +170,67 @@ TEST(ResidualStress, LocalComponentsRotateWithTheElementFrame) {
   EXPECT_CLOSE(w(0), -0.5 * 106.5, 1e-14, 0.0);
   EXPECT_EQ(local_residual_stress(p, PlateRegion::stiffener, point, Eigen::Matrix3d::Identity()),
             Eigen::Vector3d::Zero());
+}
+
+TEST(ResidualStress, MeanOverAnIntervalIntegratesAcrossBandEdges) {
+  // Welded 500 x 220 x 12 x 8 (the demo's invented girder), c = 0.25: flange band |y| <= 22 mm.
+  const ResidualStressPattern p(ResidualStressKind::welded, plates(500.0, 220.0, 12.0, 8.0), kFy);
+  EXPECT_CLOSE(p.mean_longitudinal(PlateRegion::top_flange, -30.0, 30.0), (44.0 - 0.25 * 16.0) * kFy / 60.0, 1e-14, 0.0);
+  EXPECT_CLOSE(p.mean_longitudinal(PlateRegion::top_flange, 0.0, 27.5), (22.0 - 0.25 * 5.5) * kFy / 27.5, 1e-14, 0.0);
+  EXPECT_CLOSE(p.mean_longitudinal(PlateRegion::top_flange, -110.0, 110.0), 0.0, 0.0, 1e-12 * kFy);
+  EXPECT_EQ(p.mean_longitudinal(PlateRegion::top_flange, 5.0, 5.0), kFy);
+  EXPECT_EQ(p.mean_longitudinal(PlateRegion::stiffener, 0.0, 10.0), 0.0);
+  EXPECT_THROW(p.mean_longitudinal(PlateRegion::web, 10.0, 0.0), std::invalid_argument);
+  // Hot-rolled IPE 300 (b = 150, a = 0.5 fy): the flange half [0, 75] has mean 0 (linear a -> -a).
+  const ResidualStressPattern h(ResidualStressKind::hot_rolled, *find_section("IPE 300"), kFy);
+  EXPECT_CLOSE(h.mean_longitudinal(PlateRegion::bottom_flange, 0.0, 75.0), 0.0, 0.0, 1e-13 * kFy);
+}
+
+// Net force of the discrete pattern on every plate of a hinge-zone mesh: sum over elements and
+// Gauss points of s_xx * (element area / 4) * t, the 2x2 rule's own integral of the initial stress.
+// With quadrant means it is the exact pattern's 0 to round-off for any element count; point values
+// at the Gauss points are printed beside it (they put whole Gauss-point strips into the weld band).
+TEST(ResidualStress, GaussPointMeansKeepEachPlateSelfEquilibratedOnAnyMesh) {
+  const ISection girder = plates(500.0, 220.0, 12.0, 8.0);
+  const ResidualStressPattern p(ResidualStressKind::welded, girder, kFy);
+  const double g = 1.0 / std::sqrt(3.0);
+  const double node_xi[4] = {-1, 1, 1, -1}, node_eta[4] = {-1, -1, 1, 1};
+  for (const auto& [nf, nw] : {std::pair{8, 10}, std::pair{12, 15}, std::pair{18, 23}}) {
+    HingeZoneSpec spec;
+    spec.section = girder;
+    spec.setup = HingeSetup::cantilever;
+    spec.length = 2000.0;
+    spec.flange_elements = nf;
+    spec.web_elements = nw;
+    const HingeZoneModel h = build_hinge_zone(spec);
+    std::map<std::string, std::pair<double, double>> force;  // region -> (means, point values) [N]
+    for (int e = 0; e < h.model.element_count(); ++e) {
+      const ShellElement& el = h.model.elements[static_cast<std::size_t>(e)];
+      const std::string& region = h.model.region_names[static_cast<std::size_t>(el.region)];
+      if (region == "stiffener") continue;
+      Eigen::Matrix<double, 3, 4> X;
+      for (int a = 0; a < 4; ++a) X.col(a) = h.model.nodes[static_cast<std::size_t>(el.nodes[a])];
+      const double area = 0.5 * ((X.col(2) - X.col(0)).cross(X.col(3) - X.col(1))).norm();
+      const double t = region == "web" ? girder.tw : girder.tf;
+      const auto means = gauss_point_residual_stresses(p, h.model, e, Eigen::Matrix3d::Identity());
+      for (int k = 0; k < 4; ++k) {
+        Eigen::Vector3d point = Eigen::Vector3d::Zero();
+        for (int a = 0; a < 4; ++a)
+          point += 0.25 * (1 + g * node_xi[k] * node_xi[a]) * (1 + g * node_eta[k] * node_eta[a]) * X.col(a);
+        const double sampled = local_residual_stress(p, h.model, e, point, Eigen::Matrix3d::Identity())(0);
+        force[region].first += means[static_cast<std::size_t>(k)](0) * 0.25 * area * t;
+        force[region].second += sampled * 0.25 * area * t;
+      }
+    }
+    for (const auto& [region, f] : force) {
+      const double scale = kFy * (region == "web" ? (girder.h - girder.tf) * girder.tw : girder.b * girder.tf);
+      std::printf("welded pattern, %d x %d elements, %s: net N / (fy A_plate) per unit length: quadrant means "
+                  "%.2e, point values %.4f\n", nf, nw, region.c_str(), f.first / (scale * spec.length),
+                  f.second / (scale * spec.length));
+      EXPECT_CLOSE(f.first, 0.0, 0.0, 1e-12 * scale * spec.length) << region << ", " << nf << " x " << nw;
+    }
+    EXPECT_EQ(force.size(), 3u);
+  }
 }
 
 TEST(ResidualStress, ElementLookupFollowsTheHingeModelRegions) {

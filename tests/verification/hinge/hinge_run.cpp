@@ -61,7 +61,10 @@ HingeRun run_rotcap(const std::string& command, const fs::path& case_file, const
   HingeRun r;
   r.results = scratch / "results";
   const fs::path out = scratch / "stdout.txt", err = scratch / "stderr.txt";
-  const std::string line = quoted(ROTCAP_EXE) + " " + command + " " + quoted(case_file) + " -o " +
+  // Single-threaded BLAS whatever the caller's environment: a path through a flat plateau may
+  // take other steps when CHOLMOD's BLAS sums in another order (measured: the uniform-moment EPP
+  // case needs 52 steps with one BLAS thread, 70+ with two).
+  const std::string line = "OPENBLAS_NUM_THREADS=1 " + quoted(ROTCAP_EXE) + " " + command + " " + quoted(case_file) + " -o " +
                            quoted(r.results) + " --threads 1 " + extra;
   const auto t0 = std::chrono::steady_clock::now();
   const int status = std::system((line + " >" + quoted(out) + " 2>" + quoted(err)).c_str());

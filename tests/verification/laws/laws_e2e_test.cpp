@@ -41,7 +41,7 @@ std::string read_text(const fs::path& f) {
 }
 
 int run(const std::string& command) {
-  const int status = std::system(command.c_str());
+  const int status = std::system(("OPENBLAS_NUM_THREADS=1 " + command).c_str());  // reproducible BLAS sums
   return WIFEXITED(status) ? WEXITSTATUS(status) : -1;
 }
 
