@@ -121,7 +121,7 @@ StageReport apply_residual_stresses(const CaseInput& input, const HingeCase& hin
   for (int e = 0; e < model.element_count(); ++e) {
     Eigen::Matrix<double, 3, 4> X;
     for (int a = 0; a < 4; ++a) X.col(a) = perfect.nodes[perfect.elements[e].nodes[a]];
-    at_gp[e] = gauss_point_residual_stresses(pattern, perfect, e, ShellFrame::of(X).rotation);
+    at_gp[e] = gauss_point_residual_stresses(pattern, element_plate_region(perfect, e), X, ShellFrame::of(X).rotation);
   }
   problem.set_initial_stress([&](int e, int gp, int) { return at_gp[e][gp]; });
   return report;

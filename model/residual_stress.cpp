@@ -143,28 +143,21 @@ double ResidualStressPattern::mean(const std::vector<Piece>& plate, double s0, d
   return integral / (s1 - s0);
 }
 
+const std::vector<ResidualStressPattern::Piece>* ResidualStressPattern::plate_of(PlateRegion region) const {
+  if (kind_ == ResidualStressKind::none || region == PlateRegion::stiffener) return nullptr;
+  return region == PlateRegion::web ? &web_ : &flange_;
+}
+
 double ResidualStressPattern::longitudinal(PlateRegion region, double y_or_z) const {
-  if (kind_ == ResidualStressKind::none) return 0.0;
-  switch (region) {
-    case PlateRegion::top_flange:
-    case PlateRegion::bottom_flange: return evaluate(flange_, y_or_z);
-    case PlateRegion::web: return evaluate(web_, y_or_z);
-    case PlateRegion::stiffener: return 0.0;
-  }
-  return 0.0;
+  const auto* plate = plate_of(region);
+  return plate ? evaluate(*plate, y_or_z) : 0.0;
 }
 
 double ResidualStressPattern::mean_longitudinal(PlateRegion region, double s0, double s1) const {
   if (!(s0 <= s1))
     throw std::invalid_argument("residual stress: mean over [" + num(s0) + ", " + num(s1) + "] mm: expected s0 <= s1");
-  if (kind_ == ResidualStressKind::none) return 0.0;
-  switch (region) {
-    case PlateRegion::top_flange:
-    case PlateRegion::bottom_flange: return mean(flange_, s0, s1);
-    case PlateRegion::web: return mean(web_, s0, s1);
-    case PlateRegion::stiffener: return 0.0;
-  }
-  return 0.0;
+  const auto* plate = plate_of(region);
+  return plate ? mean(*plate, s0, s1) : 0.0;
 }
 
 SelfEquilibrium ResidualStressPattern::check() const {
@@ -217,9 +210,7 @@ Eigen::Vector3d local_residual_stress(const ResidualStressPattern& pattern, Plat
   return rotate_into_frame(pattern.longitudinal(region, s), axes);
 }
 
-namespace {
-
-PlateRegion region_of(const ShellModel& model, int element) {
+PlateRegion element_plate_region(const ShellModel& model, int element) {
   if (element < 0 || element >= model.element_count())
     throw std::out_of_range("residual stress: element " + std::to_string(element) + " not in the model (" +
                             std::to_string(model.element_count()) + " elements)");
@@ -232,8 +223,6 @@ PlateRegion region_of(const ShellModel& model, int element) {
                                 "\"; patterns apply to top_flange, bottom_flange, web and stiffener only");
   return *region;
 }
-
-}  // namespace
 
 std::array<Eigen::Vector3d, 4> gauss_point_residual_stresses(const ResidualStressPattern& pattern, PlateRegion region,
                                                              const Eigen::Matrix<double, 3, 4>& corners,
@@ -260,17 +249,7 @@ std::array<Eigen::Vector3d, 4> gauss_point_residual_stresses(const ResidualStres
 
 Eigen::Vector3d local_residual_stress(const ResidualStressPattern& pattern, const ShellModel& model, int element,
                                       const Eigen::Vector3d& point, const Eigen::Matrix3d& axes) {
-  return local_residual_stress(pattern, region_of(model, element), point, axes);
-}
-
-std::array<Eigen::Vector3d, 4> gauss_point_residual_stresses(const ResidualStressPattern& pattern,
-                                                             const ShellModel& model, int element,
-                                                             const Eigen::Matrix3d& axes) {
-  const PlateRegion region = region_of(model, element);
-  Eigen::Matrix<double, 3, 4> corners;
-  for (int a = 0; a < 4; ++a)
-    corners.col(a) = model.nodes[static_cast<std::size_t>(model.elements[static_cast<std::size_t>(element)].nodes[a])];
-  return gauss_point_residual_stresses(pattern, region, corners, axes);
+  return local_residual_stress(pattern, element_plate_region(model, element), point, axes);
 }
 
 }  // namespace rotcap

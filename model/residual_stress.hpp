@@ -122,6 +122,8 @@ class ResidualStressPattern {
   double evaluate(const std::vector<Piece>& plate, double s) const;
   double mean(const std::vector<Piece>& plate, double s0, double s1) const;
   double clamp_to_plate(const std::vector<Piece>& plate, double s) const;
+  /// The pieces of a region's plate; nullptr for a stiffener or kind none (zero stress).
+  const std::vector<Piece>* plate_of(PlateRegion region) const;
 
   ResidualStressKind kind_ = ResidualStressKind::none;
   ISection section_;
@@ -155,13 +157,13 @@ std::array<Eigen::Vector3d, 4> gauss_point_residual_stresses(const ResidualStres
                                                              const Eigen::Matrix<double, 3, 4>& corners,
                                                              const Eigen::Matrix3d& axes);
 
-/// The same for element `element` of a hinge-zone ShellModel, its region looked up by name.
+/// The plate region of element `element` of a hinge-zone ShellModel, looked up by region name.
 /// Throws std::invalid_argument for a region name that is not one of PlateRegion's (a general
 /// mesh's plates have no pattern) and std::out_of_range for a bad element index.
+PlateRegion element_plate_region(const ShellModel& model, int element);
+
+/// local_residual_stress for element `element` of a hinge-zone ShellModel (element_plate_region).
 Eigen::Vector3d local_residual_stress(const ResidualStressPattern& pattern, const ShellModel& model, int element,
                                       const Eigen::Vector3d& point, const Eigen::Matrix3d& axes);
-std::array<Eigen::Vector3d, 4> gauss_point_residual_stresses(const ResidualStressPattern& pattern,
-                                                             const ShellModel& model, int element,
-                                                             const Eigen::Matrix3d& axes);
 
 }  // namespace rotcap

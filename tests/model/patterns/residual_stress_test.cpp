@@ -212,7 +212,8 @@ TEST(ResidualStress, GaussPointMeansKeepEachPlateSelfEquilibratedOnAnyMesh) {
       for (int a = 0; a < 4; ++a) X.col(a) = h.model.nodes[static_cast<std::size_t>(el.nodes[a])];
       const double area = 0.5 * ((X.col(2) - X.col(0)).cross(X.col(3) - X.col(1))).norm();
       const double t = region == "web" ? girder.tw : girder.tf;
-      const auto means = gauss_point_residual_stresses(p, h.model, e, Eigen::Matrix3d::Identity());
+      const auto means =
+          gauss_point_residual_stresses(p, element_plate_region(h.model, e), X, Eigen::Matrix3d::Identity());
       for (int k = 0; k < 4; ++k) {
         Eigen::Vector3d point = Eigen::Vector3d::Zero();
         for (int a = 0; a < 4; ++a)

@@ -28,8 +28,6 @@ namespace rotcap::testing {
 
 namespace fs = std::filesystem;
 
-namespace {
-
 std::string read_text(const fs::path& path) {
   std::ifstream in(path);
   std::ostringstream s;
@@ -37,15 +35,19 @@ std::string read_text(const fs::path& path) {
   return s.str();
 }
 
+namespace {
+
 std::string quoted(const fs::path& p) { return "'" + p.string() + "'"; }
 
 }  // namespace
 
-fs::path hinge_case(const std::string& file) {
+fs::path source_path(const fs::path& relative) {
   const char* env = std::getenv("ROTCAP_SOURCE_DIR");
   const fs::path root = env ? fs::path(env) : fs::current_path();
-  return root / "tests" / "data" / "hinge" / file;
+  return root / relative;
 }
+
+fs::path hinge_case(const std::string& file) { return source_path(fs::path("tests") / "data" / "hinge" / file); }
 
 fs::path scratch_folder(const std::string& name) {
   const fs::path p = fs::path(ROTCAP_HINGE_SCRATCH) / name;

@@ -25,8 +25,12 @@ struct HingeRun {
   std::filesystem::path results;      ///< the results folder (-o)
 };
 
+/// A path relative to the source root (ROTCAP_SOURCE_DIR, else the working directory).
+std::filesystem::path source_path(const std::filesystem::path& relative);
 /// tests/data/hinge/<file> under the source root.
 std::filesystem::path hinge_case(const std::string& file);
+/// A whole text file ("" if it cannot be read).
+std::string read_text(const std::filesystem::path& file);
 
 /// Runs `rotcap <command> <case> -o <scratch>/results --threads 1 <extra>`; `name` names the
 /// scratch folder, emptied first unless keep_scratch (to test a pre-existing results folder).

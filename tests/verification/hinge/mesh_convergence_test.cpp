@@ -21,21 +21,14 @@
 
 #include <cmath>
 #include <cstdio>
-#include <cstdlib>
 #include <fstream>
-#include <sstream>
 
 namespace rotcap::testing {
 namespace {
 
 /// The demo case with stop_below 0.97, written to a scratch folder; returns its path.
 std::filesystem::path demo_case_stopping_past_the_peak() {
-  const char* root = std::getenv("ROTCAP_SOURCE_DIR");
-  const std::filesystem::path source = std::filesystem::path(root ? root : ".") / "cases" / "carpark_girder.toml";
-  std::ifstream in(source);
-  std::stringstream text;
-  text << in.rdbuf();
-  std::string s = text.str();
+  std::string s = read_text(source_path("cases/carpark_girder.toml"));
   const std::string from = "stop_below = 0.9\n", to = "stop_below = 0.97\n";
   const auto at = s.find(from);
   if (at == std::string::npos) return {};
