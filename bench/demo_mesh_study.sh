@@ -18,7 +18,10 @@ rows = []
 for folder in sys.argv[1:]:
     s = json.load(open(f"{folder}/summary.json"))
     m, v = s["input"]["mesh"], s["solver"]
-    rows.append((f"{m['flange_elements']} x {m['web_elements']}", s, v))
+    name = f"{m['flange_elements']} x {m['web_elements']}"
+    if m.get("aspect", 1.0) != 1.0:
+        name += f", aspect {m['aspect']:g}"
+    rows.append((name, s, v))
 print(f"{'mesh (flange x web)':20s}{'nodes':>7s}{'free DOFs':>10s}{'M_max kNm':>11s}{'M/Mp':>8s}"
       f"{'th(M_max)':>10s}{'theta_u':>9s}{'R':>7s}{'theta_p':>9s}{'steps':>6s}{'iter':>6s}{'wall s':>8s}  failure mode")
 prev = None
