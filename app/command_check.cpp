@@ -16,6 +16,7 @@ int command_check(const CommandOptions& options) {
   const BuiltCase built = build_case(options.case_file, options.mesh_scale);
   // 2. Derived data of a generated model (section, class, Mp, theta_p).
   for (const std::string& line : built.description) log_info(line);
+  for (const std::string& line : built.warnings) log_warn(line);
   // 3. Model size and the factor's size from the symbolic analysis (no numeric work).
   const ShellModel& model = built.model;
   const RigidTieSet ties(model);

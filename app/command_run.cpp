@@ -25,6 +25,7 @@ int command_run(const CommandOptions& options) {
   log_info("rotcap run " + options.case_file.string() + " -> " + folder.string());
   if (!built.input.title.empty()) log_info("title: " + built.input.title);
   for (const std::string& line : built.description) log_info(line);
+  for (const std::string& line : built.warnings) log_warn(line);
   log_info("caution: " + std::string(kCaution));
   // 3. The analysis.
   int code = kExitOk;

@@ -18,6 +18,7 @@ struct BuiltCase {
   ShellModel model;                      ///< the (perfect) model to analyse
   std::optional<HingeCase> hinge;        ///< generated models: the hinge zone and its data
   std::vector<std::string> description;  ///< derived data for `check` and the log
+  std::vector<std::string> warnings;     ///< advice `check` and `run` print as warnings
 };
 
 /// mesh_scale (the --mesh-scale option): [mesh] flange_elements and web_elements of a generated
