@@ -38,7 +38,9 @@ nlohmann::json solver_summary(const PathSummary& ps, const ShellProblem& problem
   return {{"steps", ps.steps}, {"iterations", ps.iterations}, {"cutbacks", ps.cutbacks},
           {"iterations_per_step", ps.steps ? double(ps.iterations) / ps.steps : 0.0},
           {"factorisations", problem.factorisations()}, {"assembly_s", problem.assembly_seconds()},
-          {"factorisation_s", problem.factorisation_seconds()}, {"wall_s", wall}, {"free_dofs", problem.size()},
+          {"factorisation_s", problem.factorisation_seconds()},
+          {"indefinite_factorisations", problem.indefinite_factorisations()},
+          {"indefinite_factorisation_s", problem.indefinite_factorisation_seconds()}, {"wall_s", wall}, {"free_dofs", problem.size()},
           {"nodes", model.node_count()}, {"elements", model.element_count()}};
 }
 

@@ -11,33 +11,7 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
-table() {
-  python3 - "$@" <<'PY'
-import json, sys
-rows = []
-for folder in sys.argv[1:]:
-    s = json.load(open(f"{folder}/summary.json"))
-    m, v = s["input"]["mesh"], s["solver"]
-    name = f"{m['flange_elements']} x {m['web_elements']}"
-    if m.get("aspect", 1.0) != 1.0:
-        name += f", aspect {m['aspect']:g}"
-    rows.append((name, s, v))
-print(f"{'mesh (flange x web)':20s}{'nodes':>7s}{'free DOFs':>10s}{'M_max kNm':>11s}{'M/Mp':>8s}"
-      f"{'th(M_max)':>10s}{'theta_u':>9s}{'R':>7s}{'theta_p':>9s}{'steps':>6s}{'iter':>6s}{'wall s':>8s}  failure mode")
-prev = None
-for name, s, v in rows:
-    r = s["rotation_capacity"]
-    print(f"{name:20s}{v['nodes']:7d}{v['free_dofs']:10d}{s['m_max_kNm']:11.2f}{s['m_max_over_mp']:8.4f}"
-          f"{s['theta_at_m_max_mrad']:10.2f}{(s['theta_u_mrad'] or 0):9.2f}{(r or 0):7.3f}{s['theta_p_mrad']:9.3f}"
-          f"{v['steps']:6d}{v['iterations']:6d}{v['wall_s']:8.1f}  {s['failure_mode']}")
-    if prev:
-        ch = lambda k: 100.0 * (s[k] / prev[k] - 1.0) if s[k] and prev[k] else float('nan')
-        print(f"{'  change vs previous':31s}{ch('m_max_kNm'):+10.2f}%{'':8s}{ch('theta_at_m_max_mrad'):+9.2f}%"
-              f"{ch('theta_u_mrad'):+8.2f}%{ch('rotation_capacity'):+6.1f}%{ch('theta_p_mrad'):+8.2f}%")
-    prev = s
-print("(theta in mrad; wall times are single runs on a shared machine)")
-PY
-}
+table() { python3 bench/study_table.py --label mesh "$@"; }
 
 if [[ "${1:-}" == "--table" ]]; then
   shift

@@ -6,10 +6,10 @@
 //      solve, nonzeros of K and of the factor, for the automatic and the nested-dissection
 //      orderings, and the assembly with 1 and 2 OpenMP threads;
 //   2. on a 30k-DOF simply supported plate in compression: the linear buckling solve (4 modes),
-//      then numeric factorisation times of the supernodal LL^T and the simplicial LDL^T (medians
-//      of several runs, symbolic analysis excluded) on K and on the indefinite K + s Kg with one
-//      negative eigenvalue, the figures the choice of the indefinite-tangent route in the
-//      path-following solver rests on.
+//      then numeric factorisation times of the supernodal LL^T, the simplicial LDL^T and our
+//      supernodal LDL^T (medians of several runs, symbolic analysis excluded) on K and on the
+//      indefinite K + s Kg with one negative eigenvalue, the figures the choice of the
+//      indefinite-tangent route in the path-following solver rests on.
 // How to run: bench/run_benchmarks.sh (writes bench/results/linear_plate.txt), or directly
 //   OPENBLAS_NUM_THREADS=1 build/bench/bench_linear_plate [nodes_per_side_large] [nodes_per_side_small] [runs]
 // (defaults 129, 71, 5: 99 846 and 30 246 DOFs).
@@ -142,6 +142,15 @@ ShellModel compressed_plate(int s) {
   return m;
 }
 
+const char* method_name(CholmodFactor::Method method) {
+  switch (method) {
+    case CholmodFactor::Method::SupernodalLLT: return "supernodal LL^T";
+    case CholmodFactor::Method::SimplicialLDLT: return "simplicial LDL^T";
+    case CholmodFactor::Method::SupernodalLDLT: return "supernodal LDL^T";
+  }
+  return "?";
+}
+
 // Median numeric factorisation time of runs factorisations; prints the outcome.
 void time_factorisations(const SparsePattern& pattern, const std::vector<double>& values,
                          CholmodFactor::Method method, int runs, const char* label) {
@@ -154,7 +163,7 @@ void time_factorisations(const SparsePattern& pattern, const std::vector<double>
   }
   std::printf("  %-34s %-16s: analysis %.3f s, numeric median %.3f s (min %.3f, max %.3f, %d runs) -> %s, "
               "negative pivots %d\n",
-              label, method == CholmodFactor::Method::SupernodalLLT ? "supernodal LL^T" : "simplicial LDL^T",
+              label, method_name(method),
               factor.analysis_seconds(), median(t), *std::min_element(t.begin(), t.end()),
               *std::max_element(t.begin(), t.end()), runs, factor_status_name(status), factor.negative_pivots());
 }
@@ -183,12 +192,12 @@ void llt_vs_ldlt(int s, int runs) {
   std::vector<double> indefinite(k.size());
   const double shift = 0.5 * (b.load_factors[0] + b.load_factors[1]);
   for (std::size_t i = 0; i < k.size(); ++i) indefinite[i] = k[i] + shift * kg[i];
-  time_factorisations(system.pattern(), k, CholmodFactor::Method::SupernodalLLT, runs, "K (positive definite)");
-  time_factorisations(system.pattern(), k, CholmodFactor::Method::SimplicialLDLT, runs, "K (positive definite)");
-  time_factorisations(system.pattern(), indefinite, CholmodFactor::Method::SupernodalLLT, runs,
-                      "K + s Kg (1 negative eigenvalue)");
-  time_factorisations(system.pattern(), indefinite, CholmodFactor::Method::SimplicialLDLT, runs,
-                      "K + s Kg (1 negative eigenvalue)");
+  for (auto method : {CholmodFactor::Method::SupernodalLLT, CholmodFactor::Method::SimplicialLDLT,
+                      CholmodFactor::Method::SupernodalLDLT})
+    time_factorisations(system.pattern(), k, method, runs, "K (positive definite)");
+  for (auto method : {CholmodFactor::Method::SupernodalLLT, CholmodFactor::Method::SimplicialLDLT,
+                      CholmodFactor::Method::SupernodalLDLT})
+    time_factorisations(system.pattern(), indefinite, method, runs, "K + s Kg (1 negative eigenvalue)");
 }
 
 }  // namespace

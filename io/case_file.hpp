@@ -61,8 +61,8 @@
 //         global_amplitude    as local_amplitude                  "L/1000" (general: 0)
 // [residual_stress] (generated)
 //         pattern             "none" | "hot_rolled" | "welded"    "none"
-// [mesh]  flange_elements     integer (generated only)            8              even, >= 4
-//         web_elements        integer (generated only)            10             >= 4
+// [mesh]  flange_elements     integer (generated only)            18             even, >= 4
+//         web_elements        integer (generated only)            23             >= 4
 //         aspect              number (generated only)             1.0            > 0
 //         layers              integer                             5              odd, 3..15
 // [analysis]
@@ -75,9 +75,9 @@
 //         max_iterations      integer, Newton iterations per step 20             >= 1
 //         first_step          number: load-factor size of the first step (arc length: the first
 //                             arc expressed as a load-factor step)
-//                                                                 0.1            > 0
+//                                                                 0.1 (generated: 0.05)  > 0
 //         min_step_ratio      number: cut-back floor / first_step 1e-4           0 < r <= 1
-//         max_step_ratio      number: largest step / first_step   10             >= 1
+//         max_step_ratio      number: largest step / first_step   10 (generated: 1)  >= 1
 //         target_iterations   integer: step-size adaptation target (grow below it, shrink
 //                             above twice it)                     6              1 <= t <= max_iterations
 //         arc_length_form     "cylindrical" | "normal_plane"      "cylindrical"

@@ -105,8 +105,10 @@ struct ImperfectionInput {
 };
 
 struct MeshInput {
-  int flange_elements = 8;  ///< across the full flange width, even, >= 4
-  int web_elements = 10;    ///< over the web depth, >= 4
+  /// Defaults: the demo mesh study's converged level, 9 elements per flange outstand
+  /// (bench/results/demo_mesh_study.txt); coarser meshes overstate the rotations.
+  int flange_elements = 18; ///< across the full flange width, even, >= 4
+  int web_elements = 23;    ///< over the web depth, >= 4
   double aspect = 1.0;      ///< element length along the member / flange element width, > 0
   int layers = 5;           ///< through-thickness points, odd, 3..15
 };

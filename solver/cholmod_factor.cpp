@@ -1,6 +1,9 @@
 #include "solver/cholmod_factor.hpp"
 
+#include "solver/supernodal_ldlt.hpp"
+
 #include <cholmod.h>
+#include <omp.h>
 #include <spdlog/spdlog.h>
 
 #include <chrono>
@@ -22,12 +25,35 @@ const char* factor_status_name(FactorStatus status) {
   return "Unknown";
 }
 
+namespace {
+
+// CHOLMOD 3.0 (SuiteSparse 5.12, Debian 12) opens an OpenMP region with a compiled-in team of four
+// threads for every large supernode of a numeric factorisation, whatever the machine. On 2 cores
+// that oversubscribes the CPUs and the thread wake-ups cost more than the arithmetic they share:
+// the demo took 28.0 s with them and 19.3 s without, and a second thread inside CHOLMOD gained
+// nothing on 35k DOFs (bench/results/demo.txt). The dense supernode work is BLAS's, so every
+// CHOLMOD call runs with OpenMP regions made inactive (max-active-levels 0: a region gets one
+// thread) and the previous setting is restored afterwards. Not for use inside a parallel region.
+class SerialOpenMpScope {
+ public:
+  SerialOpenMpScope() : saved_(omp_get_max_active_levels()) { omp_set_max_active_levels(0); }
+  ~SerialOpenMpScope() { omp_set_max_active_levels(saved_); }
+  SerialOpenMpScope(const SerialOpenMpScope&) = delete;
+  SerialOpenMpScope& operator=(const SerialOpenMpScope&) = delete;
+
+ private:
+  int saved_;
+};
+
+}  // namespace
+
 struct CholmodFactor::Impl {
   cholmod_common common;
   cholmod_factor* factor = nullptr;
   cholmod_dense* x = nullptr;  // cholmod_solve2 workspace, reused across solves
   cholmod_dense* y = nullptr;
   cholmod_dense* e = nullptr;
+  std::unique_ptr<SupernodalLdlt> ldlt;  // Method::SupernodalLDLT: our numeric factor on CHOLMOD's symbolic one
 
   Impl() { cholmod_start(&common); }
   ~Impl() {
@@ -61,7 +87,7 @@ CholmodFactor::CholmodFactor(const SparsePattern& pattern, const Options& option
     : pattern_(pattern), options_(options), impl_(std::make_unique<Impl>()) {
   cholmod_common& c = impl_->common;
   c.print = 0;  // outcomes are reported through status(), not printed
-  c.supernodal = options.method == Method::SupernodalLLT ? CHOLMOD_SUPERNODAL : CHOLMOD_SIMPLICIAL;
+  c.supernodal = options.method == Method::SimplicialLDLT ? CHOLMOD_SIMPLICIAL : CHOLMOD_SUPERNODAL;
   c.final_ll = 0;  // simplicial: keep LDL^T (its D gives the inertia)
   // An LL^T attempt on an indefinite matrix is only a definiteness test: stop at the first bad
   // supernode instead of finishing the factorisation.
@@ -76,12 +102,27 @@ CholmodFactor::CholmodFactor(const SparsePattern& pattern, const Options& option
 
   const auto start = std::chrono::steady_clock::now();
   cholmod_sparse a = Impl::view(pattern, nullptr);
-  impl_->factor = cholmod_analyze(&a, &c);
+  {
+    const SerialOpenMpScope serial;
+    impl_->factor = cholmod_analyze(&a, &c);
+  }
   analysis_seconds_ = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
   if (!impl_->factor)
     throw std::runtime_error("CholmodFactor: symbolic analysis failed (CHOLMOD status " +
                              std::to_string(c.status) + ") for n = " + std::to_string(pattern.size()));
   ++analyses_;
+  if (options.method == Method::SupernodalLDLT) {
+    const cholmod_factor* l = impl_->factor;
+    if (!l->is_super) throw std::runtime_error("CholmodFactor: CHOLMOD returned a simplicial analysis for SupernodalLDLT");
+    const auto copy = [](const void* p, std::size_t count) {
+      const int* v = static_cast<const int*>(p);
+      return std::vector<int>(v, v + count);
+    };
+    const std::size_t ns = l->nsuper;
+    SupernodalLdlt::Symbolic sym{copy(l->super, ns + 1), copy(l->pi, ns + 1), copy(l->px, ns + 1), {}, copy(l->Perm, l->n)};
+    sym.s = copy(l->s, static_cast<std::size_t>(sym.pi.back()));
+    impl_->ldlt = std::make_unique<SupernodalLdlt>(pattern.column_starts(), pattern.row_indices(), std::move(sym));
+  }
   factor_nonzeros_ = c.lnz;
   factor_flops_ = c.fl;
   spdlog::debug("CholmodFactor: analysed n = {}, nnz(A upper) = {}, nnz(L) = {:.4g}, flops = {:.4g}, {:.3f} s",
@@ -97,10 +138,14 @@ FactorStatus CholmodFactor::factorize(std::span<const double> values) {
   if (values.size() != static_cast<std::size_t>(pattern_.nonzeros()))
     throw std::invalid_argument("CholmodFactor::factorize: " + std::to_string(values.size()) +
                                 " values; the pattern has " + std::to_string(pattern_.nonzeros()));
+  if (impl_->ldlt) return factorize_supernodal_ldlt(values);
   cholmod_common& c = impl_->common;
   const auto start = std::chrono::steady_clock::now();
   cholmod_sparse a = Impl::view(pattern_, values.data());
-  cholmod_factorize(&a, impl_->factor, &c);
+  {
+    const SerialOpenMpScope serial;
+    cholmod_factorize(&a, impl_->factor, &c);
+  }
   factorization_seconds_ = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
   ++factorizations_;
 
@@ -165,10 +210,39 @@ FactorStatus CholmodFactor::factorize(std::span<const double> values) {
   return status_;
 }
 
+FactorStatus CholmodFactor::factorize_supernodal_ldlt(std::span<const double> values) {
+  const auto start = std::chrono::steady_clock::now();
+  SupernodalLdlt& f = *impl_->ldlt;
+  const SupernodalLdlt::Outcome outcome = f.factorize(values);
+  factorization_seconds_ = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+  ++factorizations_;
+  const int n = pattern_.size();
+  if (outcome != SupernodalLdlt::Outcome::Ok) {
+    status_ = FactorStatus::ZeroPivot;
+    negative_pivots_ = -1;
+    min_pivot_ratio_ = std::numeric_limits<double>::quiet_NaN();
+    min_pivot_equation_ = -1;
+    message_ = "zero pivot at column " + std::to_string(f.failed_column()) + " of " + std::to_string(n) + " (permuted order)";
+  } else {
+    status_ = FactorStatus::Ok;
+    negative_pivots_ = f.negative_pivots();
+    min_pivot_ratio_ = f.min_pivot_ratio();
+    min_pivot_equation_ = f.min_pivot_equation();
+    message_ = fmt::format("factorised n = {}, negative pivots {}, min pivot ratio {:.3g} at equation {}", n,
+                           negative_pivots_, min_pivot_ratio_, min_pivot_equation_);
+  }
+  spdlog::debug("CholmodFactor: {} ({:.3f} s)", message_, factorization_seconds_);
+  return status_;
+}
+
 void CholmodFactor::solve(const double* b, double* x) {
   if (status_ != FactorStatus::Ok)
     throw std::logic_error(std::string("CholmodFactor::solve: factor status is ") +
                            factor_status_name(status_) + "; need Ok");
+  if (impl_->ldlt) {
+    impl_->ldlt->solve(b, x);
+    return;
+  }
   cholmod_common& c = impl_->common;
   const int n = pattern_.size();
   cholmod_dense rhs;
@@ -179,6 +253,7 @@ void CholmodFactor::solve(const double* b, double* x) {
   rhs.x = const_cast<double*>(b);
   rhs.xtype = CHOLMOD_REAL;
   rhs.dtype = CHOLMOD_DOUBLE;
+  const SerialOpenMpScope serial;
   if (!cholmod_solve2(CHOLMOD_A, impl_->factor, &rhs, nullptr, &impl_->x, nullptr, &impl_->y, &impl_->e, &c))
     throw std::runtime_error("CholmodFactor::solve: CHOLMOD status " + std::to_string(c.status));
   std::memcpy(x, impl_->x->x, sizeof(double) * static_cast<std::size_t>(n));

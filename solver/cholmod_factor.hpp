@@ -10,10 +10,15 @@
 //   SimplicialLDLT - A = P^T L D L^T P without pivoting: works for indefinite A as long as no
 //                    pivot is exactly zero; negative_pivots() is the number of d_jj < 0, which by
 //                    Sylvester's law of inertia equals the number of negative eigenvalues of A.
+//   SupernodalLDLT - the same factorisation and contract as SimplicialLDLT, computed by our
+//                    SupernodalLdlt (supernodal_ldlt.hpp) on CHOLMOD's supernodal analysis, with
+//                    dense BLAS-3 kernels: several times faster on shell tangents.
 //
 // Values are the upper triangle in the pattern's order (stype = 1). The number of BLAS threads is
 // the BLAS library's business (set OPENBLAS_NUM_THREADS=1; see design/toolchain.md).
-// Not thread-safe: one factor object per thread; solve() uses workspace held by the object.
+// CHOLMOD's own OpenMP regions are made inactive during every call (cholmod_factor.cpp says why).
+// Not thread-safe: one factor object per thread; solve() uses workspace held by the object; call it
+// outside OpenMP parallel regions.
 
 #include "solver/sparse_pattern.hpp"
 
@@ -37,7 +42,7 @@ const char* factor_status_name(FactorStatus status);
 
 class CholmodFactor {
  public:
-  enum class Method { SupernodalLLT, SimplicialLDLT };
+  enum class Method { SupernodalLLT, SimplicialLDLT, SupernodalLDLT };
   enum class Ordering {
     Automatic,        ///< CHOLMOD's default: AMD, then METIS / nested dissection if AMD fill is poor
     Amd,              ///< approximate minimum degree only
@@ -94,6 +99,7 @@ class CholmodFactor {
   double last_factorization_seconds() const { return factorization_seconds_; }
 
  private:
+  FactorStatus factorize_supernodal_ldlt(std::span<const double> values);
   struct Impl;  // CHOLMOD objects (cholmod_common, factor, solve workspace); keeps cholmod.h private
   const SparsePattern& pattern_;
   Options options_;

@@ -112,7 +112,7 @@ SturmCheck sturm_check(const SparsePattern& pattern, std::span<const double> k, 
   // K + s Kg = K - s (-Kg): negative eigenvalues <=> mu = 1/lambda > 1/s <=> 0 < lambda < s.
   std::vector<double> shifted(k.size());
   for (std::size_t i = 0; i < k.size(); ++i) shifted[i] = k[i] + sc.shift * kg[i];
-  CholmodFactor ldlt(pattern, CholmodFactor::Options{CholmodFactor::Method::SimplicialLDLT, ordering});
+  CholmodFactor ldlt(pattern, CholmodFactor::Options{CholmodFactor::Method::SupernodalLDLT, ordering});
   sc.done = ldlt.factorize(shifted) == FactorStatus::Ok;
   sc.negative_pivots = sc.done ? ldlt.negative_pivots() : 0;
   sc.message = ldlt.message();

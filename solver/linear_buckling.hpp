@@ -13,7 +13,7 @@
 // eigenvalues of K + s Kg equals the number of eigenvalues lambda in (0, s). With s slightly
 // above the largest returned lambda it must equal the number of returned load factors; a larger
 // count means the Lanczos iteration missed a (e.g. repeated) mode. The count comes from a
-// simplicial LDL^T of K + s Kg. A mismatch is reported in the result (status SturmMismatch), the
+// supernodal LDL^T of K + s Kg (CholmodFactor::Method::SupernodalLDLT). A mismatch is reported in the result (status SturmMismatch), the
 // modes found are kept.
 //
 // Modes: full vectors (6 a node, global axes, zero at held DOFs), scaled so the largest nodal

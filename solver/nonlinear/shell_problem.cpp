@@ -182,9 +182,12 @@ EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool fa
     negative_pivots_ = 0;
   }
   if (s == FactorStatus::NotPositiveDefinite) {
-    if (!ldlt_) ldlt_ = std::make_unique<CholmodFactor>(*pattern_, CholmodFactor::Method::SimplicialLDLT);
+    if (!ldlt_) ldlt_ = std::make_unique<CholmodFactor>(*pattern_, CholmodFactor::Method::SupernodalLDLT);
+    const auto t2 = std::chrono::steady_clock::now();
     s = ldlt_->factorize(values_);
+    indefinite_seconds_ += seconds_since(t2);
     ++factorisations_;
+    ++indefinite_factorisations_;
     active_ = ldlt_.get();
     negative_pivots_ = ldlt_->negative_pivots();
     indefinite_ = s == FactorStatus::Ok && negative_pivots_ > 0;

@@ -18,8 +18,8 @@
 // Without it Newton converges only linearly there (Felippa & Haugen 2005 note that the skew part
 // vanishes at equilibrium only under conservative loads without such moments).
 // Factorisation: supernodal LL^T while the tangent is positive definite; on NotPositiveDefinite
-// the simplicial LDL^T (inertia: negative_pivots()), kept while the tangent stays indefinite and
-// retried as LL^T once it had no negative pivot.
+// the supernodal LDL^T of supernodal_ldlt.hpp (inertia: negative_pivots()), kept while the tangent
+// stays indefinite and retried as LL^T once it had no negative pivot.
 
 #include "elements/corotational/corotational_shell_q4.hpp"
 #include "model/shell_model.hpp"
@@ -95,6 +95,9 @@ class ShellProblem final : public EquilibriumProblem {
   /// Numeric factorisations and their total wall time, for the solver statistics.
   int factorisations() const { return factorisations_; }
   double factorisation_seconds() const { return factor_seconds_; }
+  /// Of those, the LDL^T factorisations (after a failed LL^T or while the tangent is indefinite).
+  int indefinite_factorisations() const { return indefinite_factorisations_; }
+  double indefinite_factorisation_seconds() const { return indefinite_seconds_; }
   double assembly_seconds() const { return assembly_seconds_; }
 
  private:
@@ -133,8 +136,8 @@ class ShellProblem final : public EquilibriumProblem {
   Eigen::PartialPivLU<Eigen::MatrixXd> skew_lu_;  // I + S E^T Z
   bool skew_active_ = false;
   std::vector<double> values_;
-  int factorisations_ = 0;
-  double factor_seconds_ = 0.0, assembly_seconds_ = 0.0;
+  int factorisations_ = 0, indefinite_factorisations_ = 0;
+  double factor_seconds_ = 0.0, assembly_seconds_ = 0.0, indefinite_seconds_ = 0.0;
 };
 
 }  // namespace rotcap

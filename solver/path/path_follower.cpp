@@ -75,7 +75,8 @@ double PathFollower::landing_size(double size, bool& lands) const {
 
 PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constraint, double size,
                                                   ConvergedStep& record) {
-  // --- predict: tangent factorised at the committed state (by the caller)
+  // --- predict: tangent factorised at the committed state (by the caller: the last corrector
+  // evaluation of the previous step, or a fresh evaluation at the start and after a revert)
   const Eigen::VectorXd& f_ref = problem_.reference_load();
   const double s = std::abs(size);
   problem_.solve(f_ref, du_f_);
@@ -179,12 +180,13 @@ PathSummary PathFollower::run(const Observer& observer, double lambda0) {
     ++summary.steps;
     summary.iterations += record.iterations;
     summary.load_factor = lambda_;
-    // The tangent at the converged state (for the next predictor and the inertia count); a step that
-    // converged is reported to the observer even when this factorisation fails.
-    const bool factorised = factorise_at_committed(summary);
-    record.negative_pivots = factorised ? problem_.negative_pivots() : -1;
+    // The corrector's last evaluation was at this state, with the consistent tangent of the converged
+    // increment factorised: it is the next predictor's tangent and gives the inertia count.
+    // Re-evaluating at the committed history instead would give the elastic stiffness at every point
+    // that sits on its yield surface (a trial stress exactly on the surface is elastic), which hid
+    // the negative pivots past a peak and cost one assembly and factorisation per step.
+    record.negative_pivots = problem_.negative_pivots();
     const bool go_on = observer(record);
-    if (!factorised) return summary;
     if (!go_on || lands) {
       summary.status = PathStatus::Completed;
       summary.message = lands ? "landed on the load or displacement limit" : "stop criterion met";

@@ -53,7 +53,7 @@ struct ConvergedStep {
   double load_factor_increment = 0.0;
   int iterations = 0;                 ///< Newton corrections of the accepted attempt
   int cutbacks = 0;                   ///< failed attempts before it
-  int negative_pivots = 0;            ///< of the tangent at the converged state
+  int negative_pivots = 0;            ///< of the tangent at the converged state (its last corrector evaluation)
   double step_size = 0.0;             ///< in the constraint's measure
   std::vector<double> residual_norms; ///< |r| at each evaluation of the accepted attempt
 };

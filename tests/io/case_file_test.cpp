@@ -81,16 +81,18 @@ TEST(CaseFile, FillsTheDocumentedDefaultsOfAMinimalGeneratedCase) {
   EXPECT_EQ(c.imperfection.local_amplitude.text, "b/200");
   EXPECT_EQ(c.imperfection.global_amplitude.text, "L/1000");
   EXPECT_EQ(c.residual_stress, ResidualPattern::none);
+  EXPECT_EQ(c.mesh.flange_elements, 18);  // the demo mesh study's converged level (io/case_input.hpp)
+  EXPECT_EQ(c.mesh.web_elements, 23);
   EXPECT_EQ(c.mesh.layers, 5);
   const AnalysisInput& a = c.analysis;
   EXPECT_EQ(a.control, Control::arc_length);
   EXPECT_EQ(a.force_tolerance, 1e-6);
   EXPECT_EQ(a.displacement_tolerance, 1e-4);
   EXPECT_EQ(a.max_iterations, 20);
-  EXPECT_EQ(a.first_step, 0.1);
+  EXPECT_EQ(a.first_step, 0.05);     // generated models: constant steps (io/case_file.hpp)
   EXPECT_EQ(a.min_step_ratio, 1e-4);
   EXPECT_EQ(a.target_iterations, 6);
-  EXPECT_EQ(a.max_step_ratio, 10.0);
+  EXPECT_EQ(a.max_step_ratio, 1.0);
   EXPECT_EQ(a.arc_length_form, ArcLengthForm::cylindrical);
   EXPECT_FALSE(a.max_load_factor.has_value());
   EXPECT_EQ(c.buckling.modes, 4);

@@ -1,0 +1,219 @@
+#include "solver/supernodal_ldlt.hpp"
+
+#include <Eigen/Dense>
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <stdexcept>
+#include <string>
+
+namespace rotcap {
+
+// Fortran BLAS (the library CHOLMOD uses; OpenBLAS on Debian picks AVX2 kernels at run time, which
+// Eigen's own products, compiled for baseline x86-64, do not).
+extern "C" {
+void dtrsm_(const char* side, const char* uplo, const char* transa, const char* diag, const int* m, const int* n,
+            const double* alpha, const double* a, const int* lda, double* b, const int* ldb);
+void dgemm_(const char* transa, const char* transb, const int* m, const int* n, const int* k, const double* alpha,
+            const double* a, const int* lda, const double* b, const int* ldb, const double* beta, double* c,
+            const int* ldc);
+}
+
+namespace {
+using BlockMap = Eigen::Map<Eigen::MatrixXd>;
+// Columns of C computed per dgemm call: the lower triangle is covered by trapezoids of this width.
+constexpr int kUpdateBlock = 64;
+}
+
+SupernodalLdlt::SupernodalLdlt(std::span<const int> column_starts, std::span<const int> row_indices,
+                               Symbolic symbolic)
+    : n_(static_cast<int>(column_starts.size()) - 1), sym_(std::move(symbolic)) {
+  const auto bad = [](const std::string& what) {
+    throw std::invalid_argument("SupernodalLdlt: " + what);
+  };
+  if (n_ < 0 || static_cast<int>(sym_.perm.size()) != n_) bad("perm has " + std::to_string(sym_.perm.size()) + " entries for n = " + std::to_string(n_));
+  nsuper_ = static_cast<int>(sym_.super.size()) - 1;
+  if (nsuper_ < 0 || sym_.pi.size() != sym_.super.size() || sym_.px.size() != sym_.super.size() ||
+      (n_ > 0 && sym_.super.back() != n_) || static_cast<int>(sym_.s.size()) < sym_.pi.back())
+    bad("inconsistent supernode arrays");
+
+  std::vector<int> inverse(static_cast<std::size_t>(n_), -1);
+  for (int j = 0; j < n_; ++j) {
+    const int q = sym_.perm[j];
+    if (q < 0 || q >= n_ || inverse[q] >= 0) bad("perm is not a permutation");
+    inverse[q] = j;
+  }
+  supernode_of_.assign(static_cast<std::size_t>(n_), -1);
+  int max_x = 0, max_c = 0, max_cols = 0;
+  for (int k = 0; k < nsuper_; ++k) {
+    const int nscol = sym_.super[k + 1] - sym_.super[k];
+    const int nsrow = sym_.pi[k + 1] - sym_.pi[k];
+    const int m = nsrow - nscol;
+    if (nscol <= 0 || m < 0) bad("supernode " + std::to_string(k) + " has no columns or too few rows");
+    for (int j = sym_.super[k]; j < sym_.super[k + 1]; ++j) supernode_of_[j] = k;
+    max_x = std::max(max_x, m * nscol);
+    max_c = std::max(max_c, m);
+    max_cols = std::max(max_cols, nscol);
+  }
+
+  // Entry (r, q) of the upper triangle is entry (max, min) of the permuted lower triangle; find its
+  // place in the block of the supernode that holds column min.
+  const int nnz = column_starts[n_];
+  value_offset_.assign(static_cast<std::size_t>(nnz), -1);
+  std::vector<int> by_supernode_start(static_cast<std::size_t>(nsuper_) + 1, 0), entries(static_cast<std::size_t>(nnz));
+  const auto place = [&](int q, int p) {
+    const int a = inverse[row_indices[p]], b = inverse[q];
+    return std::pair<int, int>(std::max(a, b), std::min(a, b));  // (row, column), permuted
+  };
+  for (int q = 0; q < n_; ++q)
+    for (int p = column_starts[q]; p < column_starts[q + 1]; ++p) ++by_supernode_start[supernode_of_[place(q, p).second] + 1];
+  for (int k = 0; k < nsuper_; ++k) by_supernode_start[k + 1] += by_supernode_start[k];
+  std::vector<int> fill(by_supernode_start.begin(), by_supernode_start.end() - 1);
+  std::vector<int> entry_column(static_cast<std::size_t>(nnz));
+  for (int q = 0; q < n_; ++q)
+    for (int p = column_starts[q]; p < column_starts[q + 1]; ++p) {
+      entries[fill[supernode_of_[place(q, p).second]]++] = p;
+      entry_column[p] = q;
+    }
+  row_map_.assign(static_cast<std::size_t>(n_), -1);
+  std::vector<int> stamp(static_cast<std::size_t>(n_), -1);
+  for (int k = 0; k < nsuper_; ++k) {
+    const int nsrow = sym_.pi[k + 1] - sym_.pi[k];
+    for (int i = 0; i < nsrow; ++i) {
+      row_map_[sym_.s[sym_.pi[k] + i]] = i;
+      stamp[sym_.s[sym_.pi[k] + i]] = k;
+    }
+    for (int e = by_supernode_start[k]; e < by_supernode_start[k + 1]; ++e) {
+      const int p = entries[e];
+      const auto [row, col] = place(entry_column[p], p);
+      if (stamp[row] != k) bad("row " + std::to_string(row) + " of column " + std::to_string(col) + " is not in the symbolic factor");
+      value_offset_[p] = sym_.px[k] + (col - sym_.super[k]) * nsrow + row_map_[row];
+    }
+  }
+  diagonal_entry_.resize(static_cast<std::size_t>(n_));
+  for (int j = 0; j < n_; ++j) {
+    const int q = sym_.perm[j], last = column_starts[q + 1] - 1;
+    if (last < column_starts[q] || row_indices[last] != q) bad("column " + std::to_string(q) + " has no diagonal entry");
+    diagonal_entry_[j] = last;
+  }
+  x_.assign(static_cast<std::size_t>(sym_.px.back()), 0.0);
+  work_x_.resize(std::max(max_x, 1), 1);
+  work_c_.resize(std::max(max_c, 1), std::max(max_c, 1));
+  work_y_.resize(std::max(n_, 1));
+  work_t_.resize(std::max(std::max(max_c, max_cols), 1));
+}
+
+SupernodalLdlt::Outcome SupernodalLdlt::factorize(std::span<const double> values) {
+  if (values.size() != value_offset_.size())
+    throw std::invalid_argument("SupernodalLdlt::factorize: " + std::to_string(values.size()) + " values; the pattern has " +
+                                std::to_string(value_offset_.size()));
+  std::fill(x_.begin(), x_.end(), 0.0);
+  for (std::size_t p = 0; p < values.size(); ++p) x_[value_offset_[p]] += values[p];
+  negative_pivots_ = -1;
+  failed_column_ = -1;
+  min_pivot_ratio_ = std::numeric_limits<double>::infinity();
+  min_pivot_equation_ = -1;
+  int negative = 0;
+  const int* s = sym_.s.data();
+  for (int k = 0; k < nsuper_; ++k) {
+    const int first = sym_.super[k], nscol = sym_.super[k + 1] - first;
+    const int nsrow = sym_.pi[k + 1] - sym_.pi[k], m = nsrow - nscol;
+    BlockMap B(x_.data() + sym_.px[k], nsrow, nscol);
+    // L11 D1 L11^T = A11: left-looking, column by column, lower triangle only.
+    auto t = work_t_.head(nscol);
+    for (int j = 0; j < nscol; ++j) {
+      if (j > 0) {
+        for (int i = 0; i < j; ++i) t[i] = B(j, i) * B(i, i);
+        B.col(j).segment(j, nscol - j).noalias() -= B.block(j, 0, nscol - j, j) * t.head(j);
+      }
+      const double d = B(j, j);
+      if (d == 0.0 || !std::isfinite(d)) {
+        failed_column_ = first + j;
+        return Outcome::ZeroPivot;
+      }
+      B.col(j).segment(j + 1, nscol - j - 1) /= d;
+      negative += d < 0.0 ? 1 : 0;
+      const double a = values[diagonal_entry_[first + j]];
+      if (a != 0.0 && d / std::abs(a) < min_pivot_ratio_) {
+        min_pivot_ratio_ = d / std::abs(a);
+        min_pivot_equation_ = sym_.perm[first + j];
+      }
+    }
+    if (m == 0) continue;
+    // X = A21 L11^-T (kept in work_x_), L21 = X D1^-1, C = L21 X^T.
+    double* l21 = B.data() + nscol;  // leading dimension nsrow
+    const double one = 1.0, zero = 0.0;
+    dtrsm_("R", "L", "T", "U", &m, &nscol, &one, B.data(), &nsrow, l21, &nsrow);
+    BlockMap X(work_x_.data(), m, nscol);
+    X = B.bottomRows(m);
+    for (int j = 0; j < nscol; ++j) B.col(j).tail(m) /= B(j, j);
+    // Lower triangle of C = L21 X^T (m x m, leading dimension m), by column blocks.
+    double* c_data = work_c_.data();
+    for (int j0 = 0; j0 < m; j0 += kUpdateBlock) {
+      const int jb = std::min(kUpdateBlock, m - j0), rows = m - j0;
+      dgemm_("N", "T", &rows, &jb, &nscol, &one, l21 + j0, &nsrow, X.data() + j0, &m, &zero,
+             c_data + j0 + static_cast<std::ptrdiff_t>(j0) * m, &m);
+    }
+    const BlockMap C(c_data, m, m);
+    // Extend-add: subtract C from the blocks of the ancestors holding its columns.
+    const int* rows = s + sym_.pi[k] + nscol;
+    for (int a = 0; a < m;) {
+      const int target = supernode_of_[rows[a]];
+      const int t_first = sym_.super[target], t_end = sym_.super[target + 1];
+      const int t_rows = sym_.pi[target + 1] - sym_.pi[target];
+      for (int i = 0; i < t_rows; ++i) row_map_[s[sym_.pi[target] + i]] = i;
+      int a_end = a;
+      while (a_end < m && rows[a_end] < t_end) ++a_end;
+      for (int c = a; c < a_end; ++c) {
+        double* column = x_.data() + sym_.px[target] + static_cast<std::ptrdiff_t>(rows[c] - t_first) * t_rows;
+        for (int b = c; b < m; ++b) column[row_map_[rows[b]]] -= C(b, c);
+      }
+      a = a_end;
+    }
+  }
+  negative_pivots_ = negative;
+  return Outcome::Ok;
+}
+
+void SupernodalLdlt::solve(const double* b, double* x) {
+  if (negative_pivots_ < 0) throw std::logic_error("SupernodalLdlt::solve without an Ok factorisation");
+  auto y = work_y_.head(n_);
+  for (int j = 0; j < n_; ++j) y[j] = b[sym_.perm[j]];
+  const int* s = sym_.s.data();
+  // L z = y (forward), then D w = z, then L^T v = w (backward), supernode by supernode.
+  for (int k = 0; k < nsuper_; ++k) {
+    const int first = sym_.super[k], nscol = sym_.super[k + 1] - first;
+    const int nsrow = sym_.pi[k + 1] - sym_.pi[k], m = nsrow - nscol;
+    const BlockMap B(x_.data() + sym_.px[k], nsrow, nscol);
+    auto yk = y.segment(first, nscol);
+    B.topRows(nscol).triangularView<Eigen::UnitLower>().solveInPlace(yk);
+    if (m == 0) continue;
+    auto t = work_t_.head(m);
+    t.noalias() = B.bottomRows(m) * yk;
+    const int* rows = s + sym_.pi[k] + nscol;
+    for (int a = 0; a < m; ++a) y[rows[a]] -= t[a];
+  }
+  for (int k = 0; k < nsuper_; ++k) {
+    const int first = sym_.super[k], nscol = sym_.super[k + 1] - first;
+    const int nsrow = sym_.pi[k + 1] - sym_.pi[k];
+    const BlockMap B(x_.data() + sym_.px[k], nsrow, nscol);
+    for (int j = 0; j < nscol; ++j) y[first + j] /= B(j, j);
+  }
+  for (int k = nsuper_ - 1; k >= 0; --k) {
+    const int first = sym_.super[k], nscol = sym_.super[k + 1] - first;
+    const int nsrow = sym_.pi[k + 1] - sym_.pi[k], m = nsrow - nscol;
+    const BlockMap B(x_.data() + sym_.px[k], nsrow, nscol);
+    auto yk = y.segment(first, nscol);
+    if (m > 0) {
+      auto t = work_t_.head(m);
+      const int* rows = s + sym_.pi[k] + nscol;
+      for (int a = 0; a < m; ++a) t[a] = y[rows[a]];
+      yk.noalias() -= B.bottomRows(m).transpose() * t;
+    }
+    B.topRows(nscol).triangularView<Eigen::UnitLower>().transpose().solveInPlace(yk);
+  }
+  for (int j = 0; j < n_; ++j) x[sym_.perm[j]] = y[j];
+}
+
+}  // namespace rotcap
