@@ -60,8 +60,8 @@ BuiltCase build_case(const std::filesystem::path& case_file, std::optional<doubl
     built.warnings.push_back(
         "mesh: " + std::to_string(per_outstand) + " elements per flange outstand; in the demo's mesh study the "
         "rotations (theta at M_max, theta_u, R) changed by up to 40 % below " +
-        std::to_string(kOutstandElementsForRotations) + " per outstand while M_max stayed within 1.5 %: check them "
-        "with --mesh-scale 1.5 and 2.25 (README, Known limitations)");
+        std::to_string(kOutstandElementsForRotations) + " per outstand while M_max stayed within 1.5 %: use at "
+        "least the default 18 x 23 and check with --mesh-scale 1.5 (README, Known limitations)");
   return built;
 }
 

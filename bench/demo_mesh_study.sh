@@ -1,9 +1,9 @@
 #!/usr/bin/env bash
 # Mesh study of the demo case (cases/carpark_girder.toml): `rotcap run --mesh-scale F` for each
-# factor F (default 1 1.5 2.25 3, i.e. 8 x 10, 12 x 15, 18 x 23, 24 x 30 elements across flange x
-# web), then a table of M_max, theta at M_max, theta_u, R, theta_p, the failure mode and the run
-# sizes, each change against the previous level. Long (about an hour on 2 cores): a study for
-# bench/, not a test (the CI test runs the first two levels only, stopping past the peak).
+# factor F (default 0.45 0.667 1 1.5, i.e. 8 x 10, 12 x 15, 18 x 23 (the default), 28 x 35 elements
+# across flange x web), then the table of bench/study_table.py: M_max, theta at M_max, theta_u, R,
+# theta_p, the failure mode and the run sizes, each change against the previous level. About 7 min on
+# 2 cores: a study for bench/, not a test (the CI test runs the last two levels, stopping past the peak).
 #
 # Usage: bench/demo_mesh_study.sh [build-dir] [factor ...]
 #        bench/demo_mesh_study.sh --table RESULTS_DIR ...   (tabulate finished results folders)
@@ -21,7 +21,7 @@ fi
 build="${1:-build}"
 shift || true
 factors=("$@")
-[[ ${#factors[@]} -gt 0 ]] || factors=(1 1.5 2.25 3)
+[[ ${#factors[@]} -gt 0 ]] || factors=(0.45 0.667 1 1.5)
 export OPENBLAS_NUM_THREADS=1
 work="$(mktemp -d)"
 folders=()

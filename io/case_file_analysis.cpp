@@ -77,7 +77,7 @@ void read_analysis(TableReader& r, CaseInput& c) {
     // also the largest; cut-backs halve and regrow to it). With the consistent predictor the
     // iteration count no longer limits the step, and the moment-rotation curve of a buckling hinge
     // depends on the step size to first order (bench/results/step_size_study.txt: on the demo,
-    // 0.1 -> 0.05 -> 0.025 moved theta at M_max by +1.5 % and +0.9 %, R by +1.7 % and +1.0 %).
+    // 0.1 -> 0.05 -> 0.025 moved R by +2.0 % and +1.0 %, theta at M_max by +1.4 % and +1.2 %).
     a.first_step = 0.05;
     a.max_step_ratio = 1.0;
   }
