@@ -176,6 +176,9 @@ StageReport report_hinge_results(const CaseInput& input, const HingeCase& hinge,
   report.log.push_back(fmt("Mp (plate model) %.2f kNm, Mel %.2f kNm", mp / 1e6, hinge.mel / 1e6));
   report.log.push_back(fmt("M_max %.2f kNm = %.4f Mp at theta %.2f mrad", r.m_max / 1e6, r.m_max / mp, 1e3 * r.theta_at_m_max));
   report.log.push_back(fmt("theta_p %.3f mrad (computed), %.3f mrad (beam theory)", 1e3 * theta_p, 1e3 * hinge.theta_p_beam));
+  if (r.k_el_from_first_point_above_limit)
+    log_warn("theta_p is a secant: the first curve point is already above 0.5 Mel, so theta_p and R depend on "
+             "the first step; rerun with a smaller [analysis] first_step");
   if (r.rotation_capacity)
     report.log.push_back(fmt("theta_u %.2f mrad, rotation capacity R = %.2f", 1e3 * *r.theta_u, *r.rotation_capacity) +
                          (r.rotation_capacity_is_lower_bound ? " (lower bound: the run stopped before M fell back to Mp)" : ""));

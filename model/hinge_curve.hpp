@@ -74,6 +74,9 @@ struct HingeCurveResult {
   double mel = 0.0;                    ///< elastic moment used [N mm] (echo)
   std::optional<double> k_el;          ///< initial slope [N mm/rad]; absent: see the header
   std::size_t k_el_points = 0;         ///< points with theta != 0 in the fit of k_el
+  /// k_el from the first point alone, above elastic_fraction * Mel: a secant, so theta_p (and R) lean
+  /// on the first step's size; the message says so.
+  bool k_el_from_first_point_above_limit = false;
   std::optional<double> theta_p;       ///< Mp / k_el [rad]
   double theta_p_beam = 0.0;           ///< beam-theory theta_p [rad] (echo)
 

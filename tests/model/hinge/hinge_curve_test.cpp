@@ -34,6 +34,7 @@ TEST(HingeCurve, GivesTheRotationCapacityOfAPiecewiseLinearCurveExactly) {
   ASSERT_TRUE(r.k_el.has_value());
   EXPECT_CLOSE(*r.k_el, 1.0e4, kRoundOff, 0.0);
   EXPECT_EQ(r.k_el_points, 2u);
+  EXPECT_FALSE(r.k_el_from_first_point_above_limit);
   EXPECT_CLOSE(*r.theta_p, 0.01, kRoundOff, 0.0);
   EXPECT_EQ(r.theta_p_beam, 0.0123);
   // Symmetric neighbours 108 | 110 | 108: the parabola's vertex is the middle point.
@@ -131,6 +132,8 @@ TEST(HingeCurve, GivesALowerBoundWhenTheCurveEndsAboveMp) {
                    {0.03, 112.0},  {0.04, 115.0},  {0.05, 112.0}, {0.06, 106.0}};
   const HingeCurveResult r = extract_hinge_curve(c, kMp, kMel, 0.0);
   EXPECT_EQ(r.k_el_points, 1u);
+  EXPECT_TRUE(r.k_el_from_first_point_above_limit);
+  EXPECT_NE(r.message.find("a secant"), std::string::npos) << r.message;
   EXPECT_CLOSE(*r.k_el, 1.0e4, kRoundOff, 0.0);
   EXPECT_CLOSE(r.m_max, 115.0, kRoundOff, 0.0);
   EXPECT_EQ(r.status, HingeCurveStatus::ends_above_mp);
