@@ -35,6 +35,14 @@ struct System {
     EXPECT_TRUE(assembler.assemble(synthetic.kernel(), &values, nullptr).ok);
     if (pattern->size() <= 2000) dense = testing::to_dense(*pattern, values);
   }
+  // Values of A with row and column q zeroed: an exactly zero pivot whatever the ordering.
+  std::vector<double> without_equation(int q_zero) const {
+    std::vector<double> v = values;
+    for (int q = 0; q < pattern->size(); ++q)
+      for (int k = pattern->column_starts()[q]; k < pattern->column_starts()[q + 1]; ++k)
+        if (q == q_zero || pattern->row_indices()[k] == q_zero) v[k] = 0.0;
+    return v;
+  }
   // Values of A - sigma I on the pattern (the diagonal is always stored).
   std::vector<double> shifted(double sigma) const {
     std::vector<double> v = values;
@@ -98,11 +106,7 @@ TEST(CholmodFactor, LdltInertiaEqualsNegativeEigenvalueCount) {
 
 TEST(CholmodFactor, ReportsZeroPivotOfSingularMatrix) {
   const System s;
-  // Zero row and column 10: an exactly zero pivot whatever the ordering.
-  std::vector<double> v = s.values;
-  for (int q = 0; q < s.pattern->size(); ++q)
-    for (int k = s.pattern->column_starts()[q]; k < s.pattern->column_starts()[q + 1]; ++k)
-      if (q == 10 || s.pattern->row_indices()[k] == 10) v[k] = 0.0;
+  const std::vector<double> v = s.without_equation(10);
   CholmodFactor ldlt(*s.pattern, CholmodFactor::Method::SimplicialLDLT);
   EXPECT_EQ(ldlt.factorize(v), FactorStatus::ZeroPivot);
   CholmodFactor llt(*s.pattern, CholmodFactor::Method::SupernodalLLT);
@@ -209,12 +213,8 @@ TEST(CholmodFactor, SupernodalLdltAgreesWithSimplicialLdltOnLargeSupernodes) {
 
 TEST(CholmodFactor, SupernodalLdltReportsZeroPivot) {
   const System s;
-  std::vector<double> v = s.values;
-  for (int q = 0; q < s.pattern->size(); ++q)
-    for (int k = s.pattern->column_starts()[q]; k < s.pattern->column_starts()[q + 1]; ++k)
-      if (q == 10 || s.pattern->row_indices()[k] == 10) v[k] = 0.0;
   CholmodFactor ldlt(*s.pattern, CholmodFactor::Method::SupernodalLDLT);
-  EXPECT_EQ(ldlt.factorize(v), FactorStatus::ZeroPivot);
+  EXPECT_EQ(ldlt.factorize(s.without_equation(10)), FactorStatus::ZeroPivot);
   EXPECT_NE(ldlt.message().find("zero pivot"), std::string::npos) << ldlt.message();
   EXPECT_THROW(ldlt.solve(Eigen::VectorXd::Ones(s.pattern->size())), std::logic_error);
   ASSERT_EQ(ldlt.factorize(s.values), FactorStatus::Ok);  // and recovers on the next matrix
