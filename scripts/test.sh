@@ -3,7 +3,9 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 bash scripts/build.sh
-# One BLAS and one OpenMP thread per test process: ctest runs nproc tests at once, and the runs
-# are then reproducible to the bit whatever the machine's core count.
+# One BLAS and one OpenMP thread per test process: ctest runs one test per core at once, and the
+# runs are then reproducible to the bit whatever the machine's core count. The core count is read
+# before the export: GNU nproc honours OMP_NUM_THREADS (with it set to 1, ctest ran one test at a time).
+jobs="$(nproc)"
 export OPENBLAS_NUM_THREADS=1 OMP_NUM_THREADS=1
-ctest --test-dir build --output-on-failure -j "$(nproc)" "$@"
+ctest --test-dir build --output-on-failure -j "$jobs" "$@"
