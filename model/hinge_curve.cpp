@@ -161,11 +161,11 @@ HingeCurveResult extract_hinge_curve(std::span<const MomentRotationPoint> curve,
     return r;
   }
   r.rotation_capacity = *r.theta_u / *r.theta_p - 1.0;
-  std::string capacity = "theta_p = " + num(1e3 * *r.theta_p) + " mrad, R = theta_u / theta_p - 1";
-  if (r.k_el_from_first_point_above_limit)
-    capacity = "theta_p = " + num(1e3 * *r.theta_p) + " mrad (a secant: the first point is already above " +
-               num(options.elastic_fraction) + " Mel; a smaller [analysis] first_step gives the initial slope), "
-               "R = theta_u / theta_p - 1";
+  const std::string secant = r.k_el_from_first_point_above_limit
+                                 ? " (a secant: the first point is already above " + num(options.elastic_fraction) +
+                                       " Mel; a smaller [analysis] first_step gives the initial slope)"
+                                 : "";
+  const std::string capacity = "theta_p = " + num(1e3 * *r.theta_p) + " mrad" + secant + ", R = theta_u / theta_p - 1";
   if (r.status == HingeCurveStatus::falls_back_to_mp)
     r.message = peak_text + "; falls back to Mp at theta_u = " + num(1e3 * *r.theta_u) + " mrad; " +
                 capacity + " = " + num(*r.rotation_capacity);

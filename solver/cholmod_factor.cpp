@@ -30,8 +30,8 @@ namespace {
 // CHOLMOD 3.0 (SuiteSparse 5.12, Debian 12) opens an OpenMP region with a compiled-in team of four
 // threads for every large supernode of a numeric factorisation, whatever the machine. On 2 cores
 // that oversubscribes the CPUs and the thread wake-ups cost more than the arithmetic they share:
-// the demo took 28.0 s with them and 19.3 s without, and a second thread inside CHOLMOD gained
-// nothing on 35k DOFs (bench/results/demo.txt). The dense supernode work is BLAS's, so every
+// the 8 x 10 demo took 28.0 s with them and 19.3 s without, and a second thread inside CHOLMOD
+// gained nothing on 35k DOFs (measured 2026-12-02, issue 5's closing note). The dense supernode work is BLAS's, so every
 // CHOLMOD call runs with OpenMP regions made inactive (max-active-levels 0: a region gets one
 // thread) and the previous setting is restored afterwards. Not for use inside a parallel region.
 class SerialOpenMpScope {
@@ -44,6 +44,32 @@ class SerialOpenMpScope {
  private:
   int saved_;
 };
+
+// Inertia and the smallest scale-free pivot of a factorisation: for_each_pivot(visit) calls
+// visit(j, d_j) for every pivot (permuted order j, d_j = l_jj^2 for LL^T); perm maps j to the
+// original equation (nullptr: identity); a_jj is the last stored entry of column perm[j].
+struct PivotSummary {
+  int negative = 0;
+  double min_ratio = std::numeric_limits<double>::infinity();
+  int min_equation = -1;
+};
+
+template <class ForEachPivot>
+PivotSummary summarise_pivots(const SparsePattern& pattern, std::span<const double> values, const int* perm,
+                              ForEachPivot for_each_pivot) {
+  PivotSummary out;
+  for_each_pivot([&](int j, double d) {
+    out.negative += d < 0.0 ? 1 : 0;
+    const int q = perm ? perm[j] : j;
+    const double a = values[pattern.column_starts()[q + 1] - 1];
+    if (a == 0.0) return;  // no scale for this pivot (possible in an indefinite matrix)
+    if (d / std::abs(a) < out.min_ratio) {
+      out.min_ratio = d / std::abs(a);
+      out.min_equation = q;
+    }
+  });
+  return out;
+}
 
 }  // namespace
 
@@ -132,6 +158,17 @@ CholmodFactor::CholmodFactor(const SparsePattern& pattern, const Options& option
 CholmodFactor::CholmodFactor(const SparsePattern& pattern, Method method)
     : CholmodFactor(pattern, Options{method, Ordering::Automatic}) {}
 
+template <class ForEachPivot>
+void CholmodFactor::record_pivots(std::span<const double> values, const int* perm, ForEachPivot for_each_pivot) {
+  const PivotSummary p = summarise_pivots(pattern_, values, perm, for_each_pivot);
+  status_ = FactorStatus::Ok;
+  negative_pivots_ = p.negative;
+  min_pivot_ratio_ = p.min_ratio;
+  min_pivot_equation_ = p.min_equation;
+  message_ = fmt::format("factorised n = {}, negative pivots {}, min pivot ratio {:.3g} at equation {}",
+                         pattern_.size(), negative_pivots_, min_pivot_ratio_, min_pivot_equation_);
+}
+
 CholmodFactor::~CholmodFactor() = default;
 
 FactorStatus CholmodFactor::factorize(std::span<const double> values) {
@@ -167,44 +204,28 @@ FactorStatus CholmodFactor::factorize(std::span<const double> values) {
     message_ = std::string(ll ? "not positive definite" : "zero pivot") + " at column " +
                std::to_string(l->minor) + " of " + std::to_string(n) + " (permuted order)";
   } else {
-    status_ = FactorStatus::Ok;
     // Pivots d_j in the permuted order, from CHOLMOD's factor layout.
-    const int* perm = static_cast<const int*>(l->Perm);
     const double* lx = static_cast<const double*>(l->x);
-    int negative = 0;
-    min_pivot_ratio_ = std::numeric_limits<double>::infinity();
-    auto visit = [&](int j, double d) {
-      negative += d < 0.0 ? 1 : 0;
-      const int q = perm ? perm[j] : j;
-      const double a = values[pattern_.column_starts()[q + 1] - 1];  // diagonal: last in its column
-      if (a == 0.0) return;  // no scale for this pivot (possible in an indefinite matrix)
-      const double ratio = d / std::abs(a);
-      if (ratio < min_pivot_ratio_) {
-        min_pivot_ratio_ = ratio;
-        min_pivot_equation_ = q;
-      }
-    };
-    if (l->is_super) {
-      // Supernode s holds columns super[s] .. super[s+1]-1 as a dense column-major block of
-      // pi[s+1] - pi[s] rows starting at px[s]; l_jj is on the block's diagonal.
-      const int* super = static_cast<const int*>(l->super);
-      const int* pi = static_cast<const int*>(l->pi);
-      const int* px = static_cast<const int*>(l->px);
-      for (std::size_t s = 0; s < l->nsuper; ++s) {
-        const int rows = pi[s + 1] - pi[s];
-        for (int j = super[s]; j < super[s + 1]; ++j) {
-          const double ljj = lx[px[s] + (j - super[s]) * (rows + 1)];
-          visit(j, ljj * ljj);
+    record_pivots(values, static_cast<const int*>(l->Perm), [&](auto&& visit) {
+      if (l->is_super) {
+        // Supernode s holds columns super[s] .. super[s+1]-1 as a dense column-major block of
+        // pi[s+1] - pi[s] rows starting at px[s]; l_jj is on the block's diagonal.
+        const int* super = static_cast<const int*>(l->super);
+        const int* pi = static_cast<const int*>(l->pi);
+        const int* px = static_cast<const int*>(l->px);
+        for (std::size_t s = 0; s < l->nsuper; ++s) {
+          const int rows = pi[s + 1] - pi[s];
+          for (int j = super[s]; j < super[s + 1]; ++j) {
+            const double ljj = lx[px[s] + (j - super[s]) * (rows + 1)];
+            visit(j, ljj * ljj);
+          }
         }
+      } else {
+        // Simplicial LDL^T: d_jj is the first stored entry of column j of L.
+        const int* lp = static_cast<const int*>(l->p);
+        for (int j = 0; j < n; ++j) visit(j, lx[lp[j]]);
       }
-    } else {
-      // Simplicial LDL^T: d_jj is the first stored entry of column j of L.
-      const int* lp = static_cast<const int*>(l->p);
-      for (int j = 0; j < n; ++j) visit(j, lx[lp[j]]);
-    }
-    negative_pivots_ = negative;
-    message_ = fmt::format("factorised n = {}, negative pivots {}, min pivot ratio {:.3g} at equation {}", n,
-                           negative_pivots_, min_pivot_ratio_, min_pivot_equation_);
+    });
   }
   spdlog::debug("CholmodFactor: {} ({:.3f} s)", message_, factorization_seconds_);
   return status_;
@@ -216,20 +237,17 @@ FactorStatus CholmodFactor::factorize_supernodal_ldlt(std::span<const double> va
   const SupernodalLdlt::Outcome outcome = f.factorize(values);
   factorization_seconds_ = std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
   ++factorizations_;
-  const int n = pattern_.size();
+  negative_pivots_ = -1;
+  min_pivot_ratio_ = std::numeric_limits<double>::quiet_NaN();
+  min_pivot_equation_ = -1;
   if (outcome != SupernodalLdlt::Outcome::Ok) {
     status_ = FactorStatus::ZeroPivot;
-    negative_pivots_ = -1;
-    min_pivot_ratio_ = std::numeric_limits<double>::quiet_NaN();
-    min_pivot_equation_ = -1;
-    message_ = "zero pivot at column " + std::to_string(f.failed_column()) + " of " + std::to_string(n) + " (permuted order)";
+    message_ = "zero pivot at column " + std::to_string(f.failed_column()) + " of " + std::to_string(f.size()) +
+               " (permuted order)";
   } else {
-    status_ = FactorStatus::Ok;
-    negative_pivots_ = f.negative_pivots();
-    min_pivot_ratio_ = f.min_pivot_ratio();
-    min_pivot_equation_ = f.min_pivot_equation();
-    message_ = fmt::format("factorised n = {}, negative pivots {}, min pivot ratio {:.3g} at equation {}", n,
-                           negative_pivots_, min_pivot_ratio_, min_pivot_equation_);
+    record_pivots(values, f.permutation().data(), [&](auto&& visit) {
+      for (int j = 0; j < f.size(); ++j) visit(j, f.pivot(j));
+    });
   }
   spdlog::debug("CholmodFactor: {} ({:.3f} s)", message_, factorization_seconds_);
   return status_;

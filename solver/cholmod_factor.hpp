@@ -100,6 +100,10 @@ class CholmodFactor {
 
  private:
   FactorStatus factorize_supernodal_ldlt(std::span<const double> values);
+  // Sets status Ok, the inertia, the smallest pivot ratio and the message from the pivots that
+  // for_each_pivot(visit) passes as visit(j, d_j) (permuted order; perm[j] the original equation).
+  template <class ForEachPivot>
+  void record_pivots(std::span<const double> values, const int* perm, ForEachPivot for_each_pivot);
   struct Impl;  // CHOLMOD objects (cholmod_common, factor, solve workspace); keeps cholmod.h private
   const SparsePattern& pattern_;
   Options options_;

@@ -37,6 +37,7 @@ SupernodalLdlt::SupernodalLdlt(std::span<const int> column_starts, std::span<con
   if (nsuper_ < 0 || sym_.pi.size() != sym_.super.size() || sym_.px.size() != sym_.super.size() ||
       (n_ > 0 && sym_.super.back() != n_) || static_cast<int>(sym_.s.size()) < sym_.pi.back())
     bad("inconsistent supernode arrays");
+  x_.assign(static_cast<std::size_t>(sym_.px.back()), 0.0);
 
   std::vector<int> inverse(static_cast<std::size_t>(n_), -1);
   for (int j = 0; j < n_; ++j) {
@@ -47,14 +48,12 @@ SupernodalLdlt::SupernodalLdlt(std::span<const int> column_starts, std::span<con
   supernode_of_.assign(static_cast<std::size_t>(n_), -1);
   int max_x = 0, max_c = 0, max_cols = 0;
   for (int k = 0; k < nsuper_; ++k) {
-    const int nscol = sym_.super[k + 1] - sym_.super[k];
-    const int nsrow = sym_.pi[k + 1] - sym_.pi[k];
-    const int m = nsrow - nscol;
-    if (nscol <= 0 || m < 0) bad("supernode " + std::to_string(k) + " has no columns or too few rows");
-    for (int j = sym_.super[k]; j < sym_.super[k + 1]; ++j) supernode_of_[j] = k;
-    max_x = std::max(max_x, m * nscol);
-    max_c = std::max(max_c, m);
-    max_cols = std::max(max_cols, nscol);
+    const Block b = block(k);
+    if (b.cols <= 0 || b.m < 0) bad("supernode " + std::to_string(k) + " has no columns or too few rows");
+    for (int j = b.first; j < b.first + b.cols; ++j) supernode_of_[j] = k;
+    max_x = std::max(max_x, b.m * b.cols);
+    max_c = std::max(max_c, b.m);
+    max_cols = std::max(max_cols, b.cols);
   }
 
   // Entry (r, q) of the upper triangle is entry (max, min) of the permuted lower triangle; find its
@@ -91,13 +90,15 @@ SupernodalLdlt::SupernodalLdlt(std::span<const int> column_starts, std::span<con
       value_offset_[p] = sym_.px[k] + (col - sym_.super[k]) * nsrow + row_map_[row];
     }
   }
-  diagonal_entry_.resize(static_cast<std::size_t>(n_));
-  for (int j = 0; j < n_; ++j) {
-    const int q = sym_.perm[j], last = column_starts[q + 1] - 1;
+  for (int q = 0; q < n_; ++q) {
+    const int last = column_starts[q + 1] - 1;
     if (last < column_starts[q] || row_indices[last] != q) bad("column " + std::to_string(q) + " has no diagonal entry");
-    diagonal_entry_[j] = last;
   }
-  x_.assign(static_cast<std::size_t>(sym_.px.back()), 0.0);
+  diagonal_offset_.resize(static_cast<std::size_t>(n_));
+  for (int k = 0; k < nsuper_; ++k) {
+    const Block b = block(k);
+    for (int j = 0; j < b.cols; ++j) diagonal_offset_[b.first + j] = sym_.px[k] + j * (b.rows + 1);
+  }
   work_x_.resize(std::max(max_x, 1), 1);
   work_c_.resize(std::max(max_c, 1), std::max(max_c, 1));
   work_y_.resize(std::max(n_, 1));
@@ -110,16 +111,13 @@ SupernodalLdlt::Outcome SupernodalLdlt::factorize(std::span<const double> values
                                 std::to_string(value_offset_.size()));
   std::fill(x_.begin(), x_.end(), 0.0);
   for (std::size_t p = 0; p < values.size(); ++p) x_[value_offset_[p]] += values[p];
-  negative_pivots_ = -1;
+  factorized_ = false;
   failed_column_ = -1;
-  min_pivot_ratio_ = std::numeric_limits<double>::infinity();
-  min_pivot_equation_ = -1;
-  int negative = 0;
   const int* s = sym_.s.data();
   for (int k = 0; k < nsuper_; ++k) {
-    const int first = sym_.super[k], nscol = sym_.super[k + 1] - first;
-    const int nsrow = sym_.pi[k + 1] - sym_.pi[k], m = nsrow - nscol;
-    BlockMap B(x_.data() + sym_.px[k], nsrow, nscol);
+    const Block blk = block(k);
+    const int nscol = blk.cols, nsrow = blk.rows, m = blk.m;
+    BlockMap B(blk.data, nsrow, nscol);
     // L11 D1 L11^T = A11: left-looking, column by column, lower triangle only.
     auto t = work_t_.head(nscol);
     for (int j = 0; j < nscol; ++j) {
@@ -129,16 +127,10 @@ SupernodalLdlt::Outcome SupernodalLdlt::factorize(std::span<const double> values
       }
       const double d = B(j, j);
       if (d == 0.0 || !std::isfinite(d)) {
-        failed_column_ = first + j;
+        failed_column_ = blk.first + j;
         return Outcome::ZeroPivot;
       }
       B.col(j).segment(j + 1, nscol - j - 1) /= d;
-      negative += d < 0.0 ? 1 : 0;
-      const double a = values[diagonal_entry_[first + j]];
-      if (a != 0.0 && d / std::abs(a) < min_pivot_ratio_) {
-        min_pivot_ratio_ = d / std::abs(a);
-        min_pivot_equation_ = sym_.perm[first + j];
-      }
     }
     if (m == 0) continue;
     // X = A21 L11^-T (kept in work_x_), L21 = X D1^-1, C = L21 X^T.
@@ -159,59 +151,51 @@ SupernodalLdlt::Outcome SupernodalLdlt::factorize(std::span<const double> values
     // Extend-add: subtract C from the blocks of the ancestors holding its columns.
     const int* rows = s + sym_.pi[k] + nscol;
     for (int a = 0; a < m;) {
-      const int target = supernode_of_[rows[a]];
-      const int t_first = sym_.super[target], t_end = sym_.super[target + 1];
-      const int t_rows = sym_.pi[target + 1] - sym_.pi[target];
-      for (int i = 0; i < t_rows; ++i) row_map_[s[sym_.pi[target] + i]] = i;
+      const Block target = block(supernode_of_[rows[a]]);
+      const int* target_rows = s + sym_.pi[supernode_of_[rows[a]]];
+      for (int i = 0; i < target.rows; ++i) row_map_[target_rows[i]] = i;
       int a_end = a;
-      while (a_end < m && rows[a_end] < t_end) ++a_end;
+      while (a_end < m && rows[a_end] < target.first + target.cols) ++a_end;
       for (int c = a; c < a_end; ++c) {
-        double* column = x_.data() + sym_.px[target] + static_cast<std::ptrdiff_t>(rows[c] - t_first) * t_rows;
+        double* column = target.data + static_cast<std::ptrdiff_t>(rows[c] - target.first) * target.rows;
         for (int b = c; b < m; ++b) column[row_map_[rows[b]]] -= C(b, c);
       }
       a = a_end;
     }
   }
-  negative_pivots_ = negative;
+  factorized_ = true;
   return Outcome::Ok;
 }
 
 void SupernodalLdlt::solve(const double* b, double* x) {
-  if (negative_pivots_ < 0) throw std::logic_error("SupernodalLdlt::solve without an Ok factorisation");
+  if (!factorized_) throw std::logic_error("SupernodalLdlt::solve without an Ok factorisation");
   auto y = work_y_.head(n_);
   for (int j = 0; j < n_; ++j) y[j] = b[sym_.perm[j]];
   const int* s = sym_.s.data();
   // L z = y (forward), then D w = z, then L^T v = w (backward), supernode by supernode.
   for (int k = 0; k < nsuper_; ++k) {
-    const int first = sym_.super[k], nscol = sym_.super[k + 1] - first;
-    const int nsrow = sym_.pi[k + 1] - sym_.pi[k], m = nsrow - nscol;
-    const BlockMap B(x_.data() + sym_.px[k], nsrow, nscol);
-    auto yk = y.segment(first, nscol);
-    B.topRows(nscol).triangularView<Eigen::UnitLower>().solveInPlace(yk);
-    if (m == 0) continue;
-    auto t = work_t_.head(m);
-    t.noalias() = B.bottomRows(m) * yk;
-    const int* rows = s + sym_.pi[k] + nscol;
-    for (int a = 0; a < m; ++a) y[rows[a]] -= t[a];
+    const Block blk = block(k);
+    const BlockMap B(blk.data, blk.rows, blk.cols);
+    auto yk = y.segment(blk.first, blk.cols);
+    B.topRows(blk.cols).triangularView<Eigen::UnitLower>().solveInPlace(yk);
+    if (blk.m == 0) continue;
+    auto t = work_t_.head(blk.m);
+    t.noalias() = B.bottomRows(blk.m) * yk;
+    const int* rows = s + sym_.pi[k] + blk.cols;
+    for (int a = 0; a < blk.m; ++a) y[rows[a]] -= t[a];
   }
-  for (int k = 0; k < nsuper_; ++k) {
-    const int first = sym_.super[k], nscol = sym_.super[k + 1] - first;
-    const int nsrow = sym_.pi[k + 1] - sym_.pi[k];
-    const BlockMap B(x_.data() + sym_.px[k], nsrow, nscol);
-    for (int j = 0; j < nscol; ++j) y[first + j] /= B(j, j);
-  }
+  for (int j = 0; j < n_; ++j) y[j] /= pivot(j);
   for (int k = nsuper_ - 1; k >= 0; --k) {
-    const int first = sym_.super[k], nscol = sym_.super[k + 1] - first;
-    const int nsrow = sym_.pi[k + 1] - sym_.pi[k], m = nsrow - nscol;
-    const BlockMap B(x_.data() + sym_.px[k], nsrow, nscol);
-    auto yk = y.segment(first, nscol);
-    if (m > 0) {
-      auto t = work_t_.head(m);
-      const int* rows = s + sym_.pi[k] + nscol;
-      for (int a = 0; a < m; ++a) t[a] = y[rows[a]];
-      yk.noalias() -= B.bottomRows(m).transpose() * t;
+    const Block blk = block(k);
+    const BlockMap B(blk.data, blk.rows, blk.cols);
+    auto yk = y.segment(blk.first, blk.cols);
+    if (blk.m > 0) {
+      auto t = work_t_.head(blk.m);
+      const int* rows = s + sym_.pi[k] + blk.cols;
+      for (int a = 0; a < blk.m; ++a) t[a] = y[rows[a]];
+      yk.noalias() -= B.bottomRows(blk.m).transpose() * t;
     }
-    B.topRows(nscol).triangularView<Eigen::UnitLower>().transpose().solveInPlace(yk);
+    B.topRows(blk.cols).triangularView<Eigen::UnitLower>().transpose().solveInPlace(yk);
   }
   for (int j = 0; j < n_; ++j) x[sym_.perm[j]] = y[j];
 }
