@@ -4,11 +4,11 @@
 #include "app/logging.hpp"
 #include "app/model_builder.hpp"
 #include "app/output_folder.hpp"
-#include "app/sections.hpp"
 #include "io/case_echo.hpp"
 #include "io/input_error.hpp"
 #include "io/pvd_collection.hpp"
 #include "solver/linear_buckling.hpp"
+#include "solver/section_assignment.hpp"
 
 #include <nlohmann/json.hpp>
 
@@ -27,7 +27,8 @@ int command_buckle(const CommandOptions& options) {
   add_log_file(folder);
   log_info("rotcap buckle " + options.case_file.string() + " -> " + folder.string());
   // 2. The eigenproblem K phi = lambda (-Kg) phi about the linear state under the reference load.
-  const SectionAssignment sections = make_sections(built.model, built.input.steel, built.input.mesh.layers, true);
+  const SectionAssignment sections =
+      SectionAssignment::for_steel(built.model, built.input.steel, built.input.layers, true);
   BucklingOptions bo;
   bo.prebuckling.threads = options.threads;
   const BucklingResult result = solve_linear_buckling(built.model, sections, n_modes, bo);

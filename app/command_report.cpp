@@ -6,14 +6,19 @@
 //   curve.csv         step, load_factor, moment_kNm, rotation_mrad, ... (interface.md);
 //   final_state.json  the deformed mesh at the end (app/hinge_laws_stage.hpp); optional: without
 //                     it the page has no picture of the deformed hinge zone.
-// The hinge-zone model is rebuilt from the echo (build_hinge_case) for Mp, Mel, theta_p and the
-// classification; the mechanics of the run are not repeated. Exit 2 for a folder that is not a
+// The case is read back from the echo by the case-file reader (case_from_echo) and the hinge-zone
+// model rebuilt (build_hinge_case) for Mp, Mel, theta_p and the classification; the mechanics of the
+// run are not repeated. Exit 2 for a folder that is not a
 // generated run's results.
 #include "app/commands.hpp"
 #include "io/atomic_file.hpp"
 #include "app/hinge_case.hpp"
-#include "app/hinge_laws_stage.hpp"
+#include "app/hinge_law_outputs.hpp"
+#include "app/hinge_report_page.hpp"
+#include "app/hinge_results.hpp"
 #include "app/logging.hpp"
+#include "io/case_echo.hpp"
+#include "io/final_state.hpp"
 #include "io/input_error.hpp"
 
 #include <fstream>
@@ -25,70 +30,6 @@ namespace fs = std::filesystem;
 using nlohmann::json;
 
 namespace {
-
-template <class Enum>
-Enum enum_of(const json& j, const char* key, const fs::path& file) {
-  const std::string v = j.at(key).get<std::string>();
-  const auto names = enum_names<Enum>();
-  for (std::size_t i = 0; i < names.size(); ++i)
-    if (names[i] == v) return static_cast<Enum>(i);
-  throw InputError(file, 0, std::string("input.") + key, "\"" + v + "\"", "a value rotcap writes");
-}
-
-std::optional<double> opt(const json& j, const char* key) {
-  if (!j.contains(key) || j.at(key).is_null()) return std::nullopt;
-  return j.at(key).get<double>();
-}
-
-/// The parts of CaseInput that build the hinge-zone model and the laws, from summary.json's echo.
-CaseInput input_from_echo(const json& e, const fs::path& file) {
-  CaseInput c;
-  c.file = e.value("file", std::string());
-  c.title = e.value("title", std::string());
-  if (e.value("kind", std::string()) != "generated")
-    throw InputError(file, 0, "input.kind", "\"" + e.value("kind", std::string()) + "\"",
-                     "the results of a generated hinge-zone model ([section] + [member])");
-  const json& s = e.at("section");
-  c.section.designation = s.at("designation").is_null() ? "" : s.at("designation").get<std::string>();
-  c.section.depth = s.at("depth");
-  c.section.flange_width = s.at("flange_width");
-  c.section.flange_thickness = s.at("flange_thickness");
-  c.section.web_thickness = s.at("web_thickness");
-  c.section.root_radius = s.value("root_radius", 0.0);
-  c.section.weld_throat = s.value("weld_throat", 0.0);
-  const json& st = e.at("steel");
-  c.steel.E = st.at("E");
-  c.steel.nu = st.at("nu");
-  c.steel.fy = opt(st, "fy");
-  c.steel.fu = opt(st, "fu");
-  c.steel.curve = enum_of<SteelCurve>(st, "curve", file);
-  c.steel.hardening_modulus = opt(st, "hardening_modulus");
-  if (st.contains("table")) c.steel.table = st.at("table").get<std::vector<std::array<double, 2>>>();
-  const json& m = e.at("member");
-  c.member.setup = enum_of<Setup>(m, "setup", file);
-  c.member.length = m.at("length");
-  c.member.axial_load_ratio = m.value("axial_load_ratio", 0.0);
-  c.member.load_spacing = opt(m, "load_spacing");
-  if (m.contains("stiffeners")) {
-    if (m.at("stiffeners").is_array()) {
-      c.member.stiffeners = StiffenerLayout::positions;
-      c.member.stiffener_positions = m.at("stiffeners").get<std::vector<double>>();
-    } else {
-      c.member.stiffeners = enum_of<StiffenerLayout>(m, "stiffeners", file);
-    }
-  }
-  c.member.stiffener_thickness = opt(m, "stiffener_thickness");
-  if (e.contains("restraints"))
-    for (const json& r : e.at("restraints").at("lateral"))
-      c.lateral_restraints.push_back({r.at("x").get<double>(), enum_of<Flange>(r, "flange", file)});
-  c.residual_stress = enum_of<ResidualPattern>(e.at("residual_stress"), "pattern", file);
-  const json& mesh = e.at("mesh");
-  c.mesh.layers = mesh.value("layers", 5);
-  c.mesh.flange_elements = mesh.value("flange_elements", 8);
-  c.mesh.web_elements = mesh.value("web_elements", 10);
-  c.mesh.aspect = mesh.value("aspect", 1.0);
-  return c;
-}
 
 /// curve.csv rows: step, load_factor, moment_kNm, rotation_mrad, ... (columns found by name).
 std::vector<HingePoint> read_curve(const fs::path& file) {
@@ -146,7 +87,10 @@ int command_report(const CommandOptions& options) {
   }
   in.close();
   if (!summary.contains("input")) throw InputError(summary_file, 0, "input", "no input echo", "the summary.json of a run");
-  const CaseInput input = input_from_echo(summary.at("input"), summary_file);
+  const CaseInput input = case_from_echo(summary.at("input"), summary_file);
+  if (input.kind != ModelKind::generated)
+    throw InputError(summary_file, 0, "input.kind", "\"" + enum_name(input.kind) + "\"",
+                     "the results of a generated hinge-zone model ([section] + [member])");
   const HingeCase hinge = build_hinge_case(input);
   const std::vector<HingePoint> curve = read_curve(folder / "curve.csv");
   DeformedMesh mesh;
@@ -154,9 +98,14 @@ int command_report(const CommandOptions& options) {
     mesh = read_final_state(folder / "final_state.json");
   else
     log_warn("no final_state.json in " + folder.string() + ": the report has no picture of the deformed hinge zone");
-  const StageReport laws = report_hinge_laws(input, hinge, curve, mesh, summary, folder);
-  for (const auto& l : laws.log) log_info(l);
-  summary.update(laws.json);
+  const std::vector<MomentRotationPoint> points = moment_rotation_points(curve);
+  const HingeCurveResult extraction = extract_hinge_results(hinge, curve);
+  const HingeLawSet laws = compare_hinge_laws(
+      points, extraction, {hinge.zone, hinge.section, input.steel, input.residual_stress, hinge.theta_p_beam});
+  const StageReport outputs = write_hinge_law_outputs(input.title, points, extraction, laws, hinge.zone.plastic_moment, folder);
+  for (const auto& l : outputs.log) log_info(l);
+  summary.update(outputs.json);
+  write_hinge_report(input, hinge, points, extraction, laws, mesh, summary, folder);
   write_file_atomically(summary_file, summary.dump(2) + "\n");
   log_info("re-made curve.svg, hinge_law.csv, report.html and the law comparison in " + summary_file.string());
   return kExitOk;

@@ -1,15 +1,17 @@
 #include "app/general_analysis.hpp"
 
-#include "app/analysis_common.hpp"
+#include "app/path_run.hpp"
 #include "app/commands.hpp"
 #include "app/logging.hpp"
 #include "app/run_recorder.hpp"
-#include "app/sections.hpp"
+#include "core/text_format.hpp"
 #include "io/case_echo.hpp"
 #include "io/input_error.hpp"
 #include "solver/linear_static.hpp"
 #include "solver/nonlinear/shell_problem.hpp"
+#include "solver/dof_map.hpp"
 #include "solver/path/path_follower.hpp"
+#include "solver/section_assignment.hpp"
 
 #include <chrono>
 #include <cmath>
@@ -24,10 +26,7 @@ namespace {
 
 /// Mean of a DOF over a group's nodes, from a full displacement vector.
 double group_mean(const ShellModel& model, const GroupDof& g, const Eigen::VectorXd& u) {
-  const NodeGroup& group = model.groups.at(g.group);
-  double s = 0.0;
-  for (int n : group.nodes) s += u[kDofsPerNode * n + static_cast<int>(g.dof)];
-  return s / static_cast<double>(group.nodes.size());
+  return rotcap::group_mean(model, g.group, g.dof).value(u);
 }
 
 std::vector<std::string> curve_columns(const CaseInput& input) {
@@ -52,26 +51,10 @@ nlohmann::json model_size(const ShellModel& model, int free_dofs) {
           {"dofs", model.dof_count()}, {"free_dofs", free_dofs}};
 }
 
-/// The weights c of a displacement-controlled group mean over the free DOFs.
-Eigen::VectorXd control_weights(const CaseInput& input, const ShellModel& model, const DofMap& dofs) {
-  const GroupDof& g = *input.analysis.control_dof;
-  const NodeGroup& group = model.groups.at(g.group);
-  Eigen::VectorXd c = Eigen::VectorXd::Zero(dofs.free_count());
-  for (int n : group.nodes) {
-    const int q = dofs.equation(n, g.dof);
-    if (q < 0)
-      throw InputError(input.file, g.line, "analysis.control_dof",
-                       std::string(dof_name(g.dof)) + " of a node of group '" + g.group + "' held by a support",
-                       "a free DOF to control");
-    c[q] = 1.0 / static_cast<double>(group.nodes.size());
-  }
-  return c;
-}
-
 }  // namespace
 
 int run_general_linear(const CaseInput& input, const ShellModel& model, const fs::path& folder, int threads) {
-  const SectionAssignment sections = make_sections(model, input.steel, input.mesh.layers, true);
+  const SectionAssignment sections = SectionAssignment::for_steel(model, input.steel, input.layers, true);
   LinearStaticOptions options;
   options.threads = threads;
   log_info("linear static solve: " + std::to_string(model.node_count()) + " nodes, " +
@@ -108,7 +91,7 @@ int run_general_linear(const CaseInput& input, const ShellModel& model, const fs
     summary["monitors"][std::string(dof_name(m.dof)) + "@" + m.group] = group_mean(model, m, result.displacements);
   summary["residual_relative"] = result.backward_error;
   summary["solver"] = {{"factor_nonzeros", s.factor_nonzeros}, {"assembly_s", s.assembly_seconds},
-                       {"analysis_s", s.analysis_seconds}, {"factorization_s", s.factorization_seconds},
+                       {"analysis_s", s.analysis_seconds}, {"factorisation_s", s.factorization_seconds},
                        {"solve_s", s.solve_seconds}};
   recorder.write_summary(summary);
   log_info("largest translation " + std::to_string(max_translation) + " mm; fields in " +
@@ -119,23 +102,30 @@ int run_general_linear(const CaseInput& input, const ShellModel& model, const fs
 int run_general_path(const CaseInput& input, const ShellModel& model, const fs::path& folder, int threads) {
   const auto t_start = std::chrono::steady_clock::now();
   const AnalysisInput& a = input.analysis;
-  const SectionAssignment sections = make_sections(model, input.steel, input.mesh.layers, false);
+  const SectionAssignment sections = SectionAssignment::for_steel(model, input.steel, input.layers, false);
   ShellProblemOptions po;
   po.threads = threads;
   ShellProblem problem(model, sections, po);
-  // 1. The step constraint of the chosen control.
-  std::unique_ptr<StepConstraint> constraint;
-  PathOptions options = path_options(a);
-  if (a.control == Control::load) {
-    constraint = std::make_unique<LoadControl>();
-    options.max_load_factor = a.max_load_factor.value_or(1.0);
-  } else if (a.control == Control::displacement) {
-    constraint = std::make_unique<DisplacementControl>(control_weights(input, model, problem.dofs()));
-    if (a.max_displacement) options.max_control_value = *a.max_displacement;
-  } else {
-    constraint = arc_length_constraint(problem, a);
+  // 1. The control and its limits.
+  PathRunSetup setup;
+  setup.control = a.control;
+  setup.options = a.path;
+  setup.arc_length_form = a.arc_length_form;
+  setup.landed_reason = "reached the load or displacement limit";
+  setup.description = "path following";
+  if (a.control == Control::load) setup.options.max_load_factor = a.max_load_factor.value_or(1.0);
+  if (a.control_dof) setup.controlled = rotcap::group_mean(model, a.control_dof->group, a.control_dof->dof);
+  if (a.control == Control::displacement) {
+    int held = 0;
+    free_dof_weights(*setup.controlled, problem.dofs(), &held);
+    if (held > 0)
+      throw InputError(input.file, a.control_dof->line, "analysis.control_dof",
+                       std::string(dof_name(a.control_dof->dof)) + " of a node of group '" + a.control_dof->group +
+                           "' held by a support",
+                       "a free DOF to control");
+    if (a.max_displacement) setup.options.max_control_value = *a.max_displacement;
   }
-  if (a.max_load_factor && a.control != Control::load) options.max_load_factor = *a.max_load_factor;
+  if (a.max_load_factor && a.control != Control::load) setup.options.max_load_factor = *a.max_load_factor;
   // 2. The recorder and the unloaded state as step 0.
   RunRecorder recorder(folder, curve_columns(input), input.output.fields_every);
   const Eigen::VectorXd zero = Eigen::VectorXd::Zero(model.dof_count());
@@ -149,59 +139,39 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   nlohmann::json summary{{"title", input.title}, {"input", to_json(input)}, {"caution", kCaution}};
   summary["model"] = model_size(model, problem.size());
   double lambda_max = 0.0;
-  int last_step = 0;
-  std::string stop_reason = "completed";
-  // 3. Each converged step: a curve row, a progress line, fields when due, stop criteria.
-  auto observer = [&](const ConvergedStep& step) {
-    const Eigen::VectorXd u = problem.displacements();
-    std::vector<double> row{double(step.step), step.load_factor};
+  // 3. Each converged step: a curve row, a progress line, the stop criteria.
+  auto on_step = [&](const ConvergedStep& step, const Eigen::VectorXd& u) {
+    StepRecord record;
+    record.row = {double(step.step), step.load_factor};
     std::string monitors;
     for (const GroupDof& m : a.monitor) {
-      row.push_back(group_mean(model, m, u));
-      char buf[96];
-      std::snprintf(buf, sizeof buf, "  %s@%s %.5g", dof_name(m.dof), m.group.c_str(), row.back());
-      monitors += buf;
+      record.row.push_back(group_mean(model, m, u));
+      monitors += format_text("  %s@%s %.5g", dof_name(m.dof), m.group.c_str(), record.row.back());
     }
-    row.insert(row.end(), {problem.max_plastic_strain(), double(step.iterations), double(step.negative_pivots)});
-    recorder.add_row(row);
-    char line[160];
-    std::snprintf(line, sizeof line, "step %4d  load factor %.6g%s  iterations %d  negative pivots %d%s",
-                  step.step, step.load_factor, monitors.c_str(), step.iterations, step.negative_pivots,
-                  step.cutbacks ? ("  (" + std::to_string(step.cutbacks) + " cut-backs)").c_str() : "");
-    log_info(line);
-    last_step = step.step;
+    record.row.insert(record.row.end(),
+                      {problem.max_plastic_strain(), double(step.iterations), double(step.negative_pivots)});
+    record.progress = format_text("step %4d  load factor %.6g%s  iterations %d  negative pivots %d%s", step.step,
+                                  step.load_factor, monitors.c_str(), step.iterations, step.negative_pivots,
+                                  step.cutbacks ? ("  (" + std::to_string(step.cutbacks) + " cut-backs)").c_str() : "");
     const bool peak_passed = step.load_factor < lambda_max;
-    if (recorder.fields_due(step.step)) recorder.write_fields(step.step, step.load_factor, model, u, snapshot_results(problem));
     lambda_max = std::max(lambda_max, step.load_factor);
-    if (peak_passed && lambda_max > 0.0 && step.load_factor < a.stop_below * lambda_max) {
-      stop_reason = "load factor fell below stop_below x maximum";
-      return false;
-    }
-    if (a.control == Control::arc_length && a.control_dof && a.max_displacement) {
-      const double v = group_mean(model, *a.control_dof, u);
-      if (std::abs(v) >= std::abs(*a.max_displacement)) {
-        stop_reason = "control_dof reached max_displacement";
-        return false;
-      }
-    }
-    return true;
+    if (peak_passed && lambda_max > 0.0 && step.load_factor < a.stop_below * lambda_max)
+      record.stop_reason = "load factor fell below stop_below x maximum";
+    else if (a.control == Control::arc_length && a.control_dof && a.max_displacement &&
+             std::abs(setup.controlled->value(u)) >= std::abs(*a.max_displacement))
+      record.stop_reason = "control_dof reached max_displacement";
+    return record;
   };
-  log_info("path following (" + enum_name(a.control) + "): " + std::to_string(problem.size()) + " free DOFs");
-  PathFollower follower(problem, *constraint, options);
-  const PathSummary ps = follower.run(observer);
-  // 4. Final fields and the summary, whatever the outcome.
-  if (!recorder.has_fields(last_step))
-    recorder.write_fields(last_step, ps.load_factor, model, problem.displacements(), snapshot_results(problem));
-  if (ps.status != PathStatus::Completed) stop_reason = to_string(ps.status);
-  else if (ps.message.rfind("landed", 0) == 0) stop_reason = "reached the load or displacement limit";
+  const PathRunResult run = run_path(problem, model, recorder, setup, on_step);
+  // 4. The summary, whatever the outcome.
   const double wall = std::chrono::duration<double>(std::chrono::steady_clock::now() - t_start).count();
-  summary["stop_reason"] = stop_reason;
-  summary["message"] = ps.message;
-  summary["load_factor_final"] = ps.load_factor;
+  summary["stop_reason"] = run.stop_reason;
+  summary["message"] = run.path.message;
+  summary["load_factor_final"] = run.path.load_factor;
   summary["load_factor_max"] = lambda_max;
-  summary["solver"] = solver_summary(ps, problem, model, wall);
+  summary["solver"] = solver_summary(run.path, problem, model, wall);
   recorder.write_summary(summary);
-  return finish_path(ps, stop_reason, wall);
+  return finish_path(run.path, run.stop_reason, wall);
 }
 
 }  // namespace rotcap::app

@@ -1,21 +1,23 @@
 #include "app/hinge_analysis.hpp"
 
-#include "app/analysis_common.hpp"
 #include "app/commands.hpp"
-#include "app/hinge_laws_stage.hpp"
+#include "app/hinge_law_outputs.hpp"
+#include "app/hinge_report_page.hpp"
+#include "app/hinge_results.hpp"
 #include "app/hinge_stages.hpp"
 #include "app/logging.hpp"
+#include "app/path_run.hpp"
 #include "app/run_recorder.hpp"
-#include "app/sections.hpp"
+#include "core/text_format.hpp"
 #include "io/case_echo.hpp"
+#include "io/final_state.hpp"
 #include "solver/nonlinear/equilibrate.hpp"
 #include "solver/path/path_follower.hpp"
+#include "solver/section_assignment.hpp"
 
 #include <chrono>
 #include <cmath>
-#include <cstdio>
 #include <cstdlib>
-#include <memory>
 
 namespace rotcap::app {
 
@@ -23,31 +25,31 @@ namespace fs = std::filesystem;
 
 namespace {
 
+/// curve.csv of a hinge run. theta_over_theta_p_beam divides by the beam-theory theta_p, known
+/// before the run, so that every row is final when written (the computed theta_p of the reported R
+/// is in summary.json).
 const std::vector<std::string> kColumns{"step", "load_factor", "moment_kNm", "rotation_mrad", "m_over_mp",
-                                        "theta_over_theta_p", "max_plastic_strain", "iterations",
+                                        "theta_over_theta_p_beam", "max_plastic_strain", "iterations",
                                         "negative_pivots"};
 
-double hinge_rotation(const HingeZoneModel& zone, const Eigen::VectorXd& u) {
-  double theta = 0.0;
-  for (std::size_t i = 0; i < zone.rotation.nodes.size(); ++i)
-    theta += zone.rotation.weights[i] * u[kDofsPerNode * zone.rotation.nodes[i] + static_cast<int>(zone.rotation.dof)];
-  return theta;
+std::vector<double> row_of(const HingePoint& p, double mp, double theta_p_beam) {
+  return {double(p.step), p.load_factor, p.moment / 1e6, 1e3 * p.rotation, p.moment / mp, p.rotation / theta_p_beam,
+          p.max_plastic_strain, double(p.iterations), double(p.negative_pivots)};
 }
 
-std::vector<double> row_of(const HingePoint& p, double mp, double theta_p) {
-  return {double(p.step), p.load_factor, p.moment / 1e6, 1e3 * p.rotation, p.moment / mp,
-          theta_p > 0 ? p.rotation / theta_p : 0.0, p.max_plastic_strain, double(p.iterations),
-          double(p.negative_pivots)};
-}
-
-/// Control weights of the hinge rotation over the free DOFs (displacement control of theta).
-Eigen::VectorXd rotation_weights(const HingeZoneModel& zone, const DofMap& dofs) {
-  Eigen::VectorXd c = Eigen::VectorXd::Zero(dofs.free_count());
-  for (std::size_t i = 0; i < zone.rotation.nodes.size(); ++i) {
-    const int q = dofs.equation(zone.rotation.nodes[i], zone.rotation.dof);
-    if (q >= 0) c[q] += zone.rotation.weights[i];
-  }
-  return c;
+/// The axial load first, under load control to its full value, then held as a fixed load.
+void apply_axial_load(ShellProblem& problem, const ShellModel& model, const HingeZoneModel& zone,
+                      const PathOptions& options, const Eigen::VectorXd& bending) {
+  problem.set_reference_load(load_vector(model, model.fixed_loads));
+  LoadControl control;
+  PathOptions ao = options;
+  ao.max_load_factor = 1.0;
+  ao.first_step = 0.25;
+  PathFollower axial(problem, control, ao);
+  const PathSummary s = axial.run([](const ConvergedStep&) { return true; });
+  log_info("axial load N = " + std::to_string(zone.axial_force / 1e3) + " kN applied: " + s.message);
+  problem.set_fixed_load(load_vector(model, model.fixed_loads));
+  problem.set_reference_load(bending);
 }
 
 }  // namespace
@@ -63,63 +65,46 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   for (const auto& l : imperfection.log) log_info(l);
   summary["imperfection"] = imperfection.json;
   // 2. Sections and the nonlinear problem; residual stresses and their equilibrium step.
-  const SectionAssignment sections = make_sections(model, input.steel, input.mesh.layers, false);
+  const SectionAssignment sections = SectionAssignment::for_steel(model, input.steel, input.layers, false);
   ShellProblemOptions po;
   po.threads = threads;
   ShellProblem problem(model, sections, po);
   const Eigen::VectorXd bending = reference_load_vector(model);
-  const StageReport residual = apply_residual_stresses(input, hinge, model, problem);
+  const StageReport residual = apply_residual_stresses(input, hinge, problem);
   for (const auto& l : residual.log) log_info(l);
   summary["residual_stress"] = residual.json;
-  const double force_scale = bending.norm();
-  if (input.residual_stress != ResidualPattern::none) {
-    const EquilibrateResult eq = equilibrate(problem, force_scale);
-    char line[200];
-    std::snprintf(line, sizeof line, "residual-stress equilibrium: %s in %d iterations, largest displacement %.3g mm",
-                  eq.converged ? "converged" : "FAILED", eq.iterations, eq.displacement_norm);
-    log_info(line);
+  if (input.residual_stress != ResidualStressKind::none) {
+    const EquilibrateResult eq = equilibrate(problem, bending.norm());
+    log_info(format_text("residual-stress equilibrium: %s in %d iterations, largest displacement %.3g mm",
+                         eq.converged ? "converged" : "FAILED", eq.iterations, eq.displacement_norm));
     summary["residual_stress"]["equilibrium_iterations"] = eq.iterations;
     summary["residual_stress"]["equilibrium_displacement_mm"] = eq.displacement_norm;
     if (!eq.converged) log_warn("residual stresses could not be equilibrated: " + eq.message);
   }
-  // 3. The axial load first, under load control to its full value, then held.
-  const PathOptions options = path_options(input.analysis);
-  if (zone.axial_force > 0.0) {
-    problem.set_reference_load(load_vector(model, model.fixed_loads));
-    LoadControl control;
-    PathOptions ao = options;
-    ao.max_load_factor = 1.0;
-    ao.first_step = 0.25;
-    PathFollower axial(problem, control, ao);
-    const PathSummary s = axial.run([](const ConvergedStep&) { return true; });
-    log_info("axial load N = " + std::to_string(zone.axial_force / 1e3) + " kN applied: " + s.message);
-    problem.set_fixed_load(load_vector(model, model.fixed_loads));
-    problem.set_reference_load(bending);
-  }
-  // 4. The bending load traced past the peak.
+  // 3. The axial load first, then held.
+  if (zone.axial_force > 0.0) apply_axial_load(problem, model, zone, input.analysis.path, bending);
+  // 4. The bending load traced past the peak; the unloaded (or axially loaded) state is step 0.
   RunRecorder recorder(folder, kColumns, input.output.fields_every);
   std::vector<HingePoint> curve{HingePoint{}};
   const Eigen::VectorXd u0 = problem.displacements();
   recorder.add_row(row_of(curve[0], mp, hinge.theta_p_beam));
   recorder.write_fields(0, 0.0, model, u0, snapshot_results(problem));
-  double m_max = 0.0, theta_p_first = 0.0;
+  double m_max = 0.0;
   Eigen::VectorXd u_peak = u0;
   int peak_step = 0;
   ElementResults peak_results;
-  std::string stop_reason = "completed";
-  auto observer = [&](const ConvergedStep& step) {
-    const Eigen::VectorXd u = problem.displacements();
-    HingePoint p{step.step, step.load_factor, step.load_factor * zone.moment_per_load_factor,
-                 hinge_rotation(zone, u) - hinge_rotation(zone, u0), problem.max_plastic_strain(), step.iterations,
-                 step.negative_pivots};
+  const double theta0 = zone.rotation.value(u0);
+  auto on_step = [&](const ConvergedStep& step, const Eigen::VectorXd& u) {
+    const HingePoint p{step.step, step.load_factor, step.load_factor * zone.moment_per_load_factor,
+                       zone.rotation.value(u) - theta0, problem.max_plastic_strain(), step.iterations,
+                       step.negative_pivots};
     curve.push_back(p);
-    if (theta_p_first == 0.0 && p.rotation != 0.0) theta_p_first = mp / (p.moment / p.rotation);
-    recorder.add_row(row_of(p, mp, theta_p_first));
-    char line[200];
-    std::snprintf(line, sizeof line, "step %4d  M/Mp %.4f  theta/theta_p %.3f  (%.2f mrad)  iterations %d  negative pivots %d%s",
-                  p.step, p.moment / mp, p.rotation / theta_p_first, 1e3 * p.rotation, p.iterations,
-                  p.negative_pivots, step.cutbacks ? "  (after cut-backs)" : "");
-    log_info(line);
+    StepRecord record;
+    record.row = row_of(p, mp, hinge.theta_p_beam);
+    record.progress = format_text("step %4d  load factor %.4f  M/Mp %.4f  rotation %.2f mrad  iterations %d  "
+                                  "negative pivots %d%s",
+                                  p.step, p.load_factor, p.moment / mp, 1e3 * p.rotation, p.iterations,
+                                  p.negative_pivots, step.cutbacks ? "  (after cut-backs)" : "");
     if (std::getenv("ROTCAP_DEBUG_RESIDUALS")) {
       std::string rs = "  |r|:";
       for (double x : step.residual_norms) rs += " " + std::to_string(x);
@@ -133,61 +118,50 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
     } else if (peak_step > 0 && !recorder.has_fields(peak_step)) {
       recorder.write_fields(peak_step, curve[peak_step].load_factor, model, u_peak, peak_results);
     }
-    if (recorder.fields_due(p.step)) recorder.write_fields(p.step, p.load_factor, model, u, snapshot_results(problem));
-    if (std::abs(p.rotation) >= input.analysis.max_rotation) {
-      stop_reason = "rotation reached max_rotation";
-      return false;
-    }
-    if (p.moment < input.analysis.stop_below * m_max && m_max > 0.0) {
-      stop_reason = "moment fell below stop_below x M_max";
-      return false;
-    }
-    return true;
+    if (std::abs(p.rotation) >= input.analysis.max_rotation)
+      record.stop_reason = "rotation reached max_rotation";
+    else if (p.moment < input.analysis.stop_below * m_max && m_max > 0.0)
+      record.stop_reason = "moment fell below stop_below x M_max";
+    return record;
   };
-  std::unique_ptr<StepConstraint> constraint;
-  if (input.analysis.control == Control::displacement)
-    constraint = std::make_unique<DisplacementControl>(rotation_weights(zone, problem.dofs()));
-  else if (input.analysis.control == Control::load)
-    constraint = std::make_unique<LoadControl>();
-  else
-    constraint = arc_length_constraint(problem, input.analysis);
-  PathOptions bo = options;
-  if (input.analysis.control == Control::load) bo.max_load_factor = input.analysis.max_load_factor.value_or(1.0);
-  log_info("tracing the moment-rotation curve (" + enum_name(input.analysis.control) + "), " +
-           std::to_string(problem.size()) + " free DOFs");
-  PathFollower follower(problem, *constraint, bo);
-  const PathSummary ps = follower.run(observer);
-  if (ps.status != PathStatus::Completed) stop_reason = to_string(ps.status);
-  // 5. The last fields, the reported numbers and the summary.
-  const Eigen::VectorXd u_end = problem.displacements();
-  const int last = curve.back().step;
-  if (!recorder.has_fields(last)) recorder.write_fields(last, curve.back().load_factor, model, u_end, snapshot_results(problem));
+  PathRunSetup setup;
+  setup.control = input.analysis.control;
+  setup.options = input.analysis.path;
+  if (setup.control == Control::load) setup.options.max_load_factor = input.analysis.max_load_factor.value_or(1.0);
+  setup.arc_length_form = input.analysis.arc_length_form;
+  setup.controlled = zone.rotation;
+  setup.description = "tracing the moment-rotation curve";
+  const PathRunResult run = run_path(problem, model, recorder, setup, on_step);
   if (peak_step > 0 && !recorder.has_fields(peak_step))
     recorder.write_fields(peak_step, curve[peak_step].load_factor, model, u_peak, peak_results);
-  const StageReport results = report_hinge_results(input, hinge, model, curve, u_peak, u_end, folder);
+  // 5. The reported numbers (one extraction), the laws, the plot, the summary and the report.
+  const Eigen::VectorXd u_end = problem.displacements();
+  const HingeCurveResult extraction = extract_hinge_results(hinge, curve);
+  const FailureMode failure = classify_failure(hinge, curve, extraction, u_peak, u_end);
+  const StageReport results = hinge_results_report(hinge, extraction, failure);
   for (const auto& l : results.log) log_info(l);
-  // curve.csv once more with the final theta_p (rows were written as the run went, with the first
-  // step's slope).
-  {
-    const double theta_p = computed_theta_p(hinge, curve);
-    CurveCsv final_csv(folder / "curve.csv.tmp", kColumns);
-    for (const HingePoint& p : curve) final_csv.write_row(row_of(p, mp, theta_p));
-    final_csv.close();
-    fs::rename(folder / "curve.csv.tmp", folder / "curve.csv");
+  summary.update(results.json);
+  const std::vector<MomentRotationPoint> points = moment_rotation_points(curve);
+  const DeformedMesh final_mesh = deformed_mesh(model, u_end);
+  write_final_state(final_mesh, folder / "final_state.json");
+  std::optional<HingeLawSet> laws;
+  try {
+    laws = compare_hinge_laws(points, extraction,
+                              {zone, hinge.section, input.steel, input.residual_stress, hinge.theta_p_beam});
+    const StageReport outputs = write_hinge_law_outputs(input.title, points, extraction, *laws, mp, folder);
+    for (const auto& l : outputs.log) log_info(l);
+    summary.update(outputs.json);
+  } catch (const std::exception& e) {
+    laws.reset();
+    log_warn(std::string("hinge laws, curve.svg and report.html not made: ") + e.what());
   }
   const double wall = std::chrono::duration<double>(std::chrono::steady_clock::now() - t_start).count();
-  summary.update(results.json);
-  summary["stop_reason"] = stop_reason;
-  summary["message"] = ps.message;
-  summary["solver"] = solver_summary(ps, problem, model, wall);
+  summary["stop_reason"] = run.stop_reason;
+  summary["message"] = run.path.message;
+  summary["solver"] = solver_summary(run.path, problem, model, wall);
   recorder.write_summary(summary);
-  // report.html once more, now that the summary holds the stop reason and solver statistics.
-  try {
-    report_hinge_laws(input, hinge, curve, read_final_state(folder / "final_state.json"), summary, folder);
-  } catch (const std::exception& e) {
-    log_warn(std::string("report.html not remade: ") + e.what());
-  }
-  return finish_path(ps, stop_reason, wall);
+  if (laws) write_hinge_report(input, hinge, points, extraction, *laws, final_mesh, summary, folder);
+  return finish_path(run.path, run.stop_reason, wall);
 }
 
 }  // namespace rotcap::app

@@ -24,7 +24,7 @@ struct HingeCase {
   std::vector<std::string> description;
 };
 
-/// Throws InputError naming the case file and key for a bad generated model.
+/// The model of a case read by read_case_file (which validated the spec).
 HingeCase build_hinge_case(const CaseInput& input);
 
 }  // namespace rotcap::app

@@ -1,8 +1,10 @@
 // rotcap: plastic-hinge rotation capacity of steel I-beams by nonlinear shell analysis.
 // The command line, as numbered steps: 1. parse, 2. set up logging, 3. run the command,
-// 4. map failures to exit codes (2 bad input, 3 stopped early, 1 internal error).
+// 4. map failures to exit codes (2 bad input: InputError or OptionError; 3 stopped early;
+// 1 internal error: anything else, failed ROTCAP_CHECKs included).
 #include "app/commands.hpp"
 #include "app/logging.hpp"
+#include "core/option_error.hpp"
 #include "io/input_error.hpp"
 
 #include <CLI/CLI.hpp>
@@ -70,10 +72,12 @@ int main(int argc, char** argv) {
   } catch (const rotcap::OutputError& e) {
     std::cerr << "rotcap: cannot write output: " << e.what() << "\n";
     return kExitInternal;
-  } catch (const std::invalid_argument& e) {
+  } catch (const rotcap::OptionError& e) {
+    // An owner's validation that io did not place at a line (every case-file path converts it).
     std::cerr << "rotcap: error: " << o.case_file.string() << ": " << e.what() << "\n";
     return kExitBadInput;
   } catch (const std::exception& e) {
+    // Everything else, ROTCAP_CHECK failures (InternalError) included, is a program error.
     std::cerr << "rotcap: internal error: " << e.what() << "\n";
     return kExitInternal;
   }

@@ -1,12 +1,12 @@
 #include "app/model_builder.hpp"
 
+#include "core/text_format.hpp"
 #include "io/case_file.hpp"
 #include "io/general_model.hpp"
 #include "io/input_error.hpp"
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 #include <stdexcept>
 
 namespace rotcap::app {
@@ -19,12 +19,11 @@ namespace {
 constexpr int kOutstandElementsForRotations = 9;
 
 /// The scaled counts of --mesh-scale; returns the log line.
-std::string scale_mesh(MeshInput& mesh, double factor) {
+std::string scale_mesh(HingeZoneSpec& mesh, double factor) {
   const int flange = std::max(4, 2 * static_cast<int>(std::lround(0.5 * factor * mesh.flange_elements)));
   const int web = std::max(4, static_cast<int>(std::lround(factor * mesh.web_elements)));
-  char line[160];
-  std::snprintf(line, sizeof line, "mesh scaled by %g (--mesh-scale): flange_elements %d -> %d, web_elements %d -> %d",
-                factor, mesh.flange_elements, flange, mesh.web_elements, web);
+  const std::string line = format_text("mesh scaled by %g (--mesh-scale): flange_elements %d -> %d, web_elements %d -> %d",
+                                       factor, mesh.flange_elements, flange, mesh.web_elements, web);
   mesh.flange_elements = flange;
   mesh.web_elements = web;
   return line;
@@ -40,7 +39,7 @@ BuiltCase build_case(const std::filesystem::path& case_file, std::optional<doubl
                      built.input.model.mesh.string() + "\")",
                      "a generated hinge-zone model ([section], [member]); refine a mesh file in its mesher");
   std::string scaled;
-  if (mesh_scale) scaled = scale_mesh(built.input.mesh, *mesh_scale);
+  if (mesh_scale) scaled = scale_mesh(built.input.zone, *mesh_scale);
   if (built.input.kind == ModelKind::general) {
     built.model = build_general_model(built.input);
     try {
@@ -55,7 +54,7 @@ BuiltCase build_case(const std::filesystem::path& case_file, std::optional<doubl
   built.model = built.hinge->zone.model;
   built.description = built.hinge->description;
   if (!scaled.empty()) built.description.insert(built.description.begin(), scaled);
-  const int per_outstand = built.input.mesh.flange_elements / 2;
+  const int per_outstand = built.input.zone.flange_elements / 2;
   if (per_outstand < kOutstandElementsForRotations)
     built.warnings.push_back(
         "mesh: " + std::to_string(per_outstand) + " elements per flange outstand; in the demo's mesh study the "

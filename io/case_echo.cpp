@@ -1,5 +1,10 @@
 #include "io/case_echo.hpp"
 
+#include "io/case_file_parts.hpp"
+#include "io/input_error.hpp"
+
+#include <toml++/toml.h>
+
 namespace rotcap {
 
 namespace {
@@ -14,38 +19,41 @@ json amplitude(const Amplitude& a) {
 
 json group_dof(const GroupDof& g) { return {{"group", g.group}, {"dof", dof_name(g.dof)}}; }
 
-json steel(const SteelInput& s) {
-  json j = {{"E", s.E}, {"nu", s.nu}, {"fy", optional(s.fy)}, {"fu", optional(s.fu)},
-            {"curve", enum_name(s.curve)}};
-  if (s.curve == SteelCurve::bilinear) j["hardening_modulus"] = optional(s.hardening_modulus);
-  if (s.curve == SteelCurve::table) j["table"] = s.table;
+/// The [steel] keys the curve uses (fy also for every generated model: it defines Mp).
+json steel(const SteelModel& s, ModelKind kind) {
+  json j = {{"E", s.E}, {"nu", s.nu}, {"curve", enum_name(s.kind)}};
+  if (kind == ModelKind::generated || s.kind != SteelCurveKind::elastic) j["fy"] = s.fy;
+  if (s.kind == SteelCurveKind::bilinear || s.kind == SteelCurveKind::quadlinear) j["fu"] = s.fu;
+  if (s.kind == SteelCurveKind::bilinear) j["hardening_modulus"] = s.hardening_modulus;
+  if (s.kind == SteelCurveKind::table) j["table"] = s.table;
   return j;
 }
 
-json member(const MemberInput& m) {
+json member(const HingeZoneSpec& m) {
   json j = {{"setup", enum_name(m.setup)}, {"length", m.length}, {"axial_load_ratio", m.axial_load_ratio}};
-  if (m.setup == Setup::four_point) j["load_spacing"] = optional(m.load_spacing);
-  if (m.setup == Setup::cantilever) j["support"] = enum_name(m.support);
-  if (m.stiffeners == StiffenerLayout::positions)
+  if (m.setup == HingeSetup::four_point) j["load_spacing"] = m.load_spacing;
+  if (m.setup == HingeSetup::cantilever) j["support"] = enum_name(m.cantilever_support);
+  if (m.stiffeners == StiffenerPlacement::positions)
     j["stiffeners"] = m.stiffener_positions;
   else
     j["stiffeners"] = enum_name(m.stiffeners);
-  if (m.stiffeners != StiffenerLayout::none) j["stiffener_thickness"] = optional(m.stiffener_thickness);
+  if (m.stiffeners != StiffenerPlacement::none) j["stiffener_thickness"] = optional(m.stiffener_thickness);
   return j;
 }
 
 json analysis(const AnalysisInput& a, ModelKind kind) {
+  const PathOptions& p = a.path;
   json j = {{"control", enum_name(a.control)},
-            {"force_tolerance", a.force_tolerance},
-            {"displacement_tolerance", a.displacement_tolerance},
-            {"max_iterations", a.max_iterations},
-            {"first_step", a.first_step},
-            {"min_step_ratio", a.min_step_ratio},
-            {"max_step_ratio", a.max_step_ratio},
-            {"target_iterations", a.target_iterations},
+            {"force_tolerance", p.force_tolerance},
+            {"displacement_tolerance", p.displacement_tolerance},
+            {"max_iterations", p.max_iterations},
+            {"first_step", p.first_step},
+            {"min_step_ratio", p.min_step_ratio},
+            {"max_step_ratio", p.max_step_ratio},
+            {"target_iterations", p.target_iterations},
             {"arc_length_form", enum_name(a.arc_length_form)},
             {"stop_below", a.stop_below},
-            {"max_steps", a.max_steps}};
+            {"max_steps", p.max_steps}};
   if (kind == ModelKind::generated) {
     j["max_rotation"] = a.max_rotation;
     return j;
@@ -80,35 +88,83 @@ json general_parts(const CaseInput& c, json j) {
 json to_json(const CaseInput& c) {
   json j = {{"file", c.file.string()}, {"title", c.title}, {"kind", enum_name(c.kind)}};
   if (c.kind == ModelKind::generated) {
-    const SectionInput& s = c.section;
+    const ISection& s = c.zone.section;
     j["section"] = {{"designation", s.designation.empty() ? json(nullptr) : json(s.designation)},
-                    {"depth", s.depth}, {"flange_width", s.flange_width},
-                    {"flange_thickness", s.flange_thickness}, {"web_thickness", s.web_thickness},
-                    {"root_radius", s.root_radius}, {"weld_throat", s.weld_throat}};
-    j["member"] = member(c.member);
+                    {"depth", s.h}, {"flange_width", s.b},
+                    {"flange_thickness", s.tf}, {"web_thickness", s.tw},
+                    {"root_radius", s.r}, {"weld_throat", s.weld_throat}};
+    j["member"] = member(c.zone);
     json lateral = json::array();
-    for (const LateralRestraint& r : c.lateral_restraints)
+    for (const LateralBrace& r : c.zone.lateral_restraints)
       lateral.push_back({{"x", r.x}, {"flange", enum_name(r.flange)}});
     j["restraints"] = {{"lateral", lateral}};
     j["residual_stress"] = {{"pattern", enum_name(c.residual_stress)}};
   }
-  j["steel"] = steel(c.steel);
+  j["steel"] = steel(c.steel, c.kind);
   json imperfection = {{"local", enum_name(c.imperfection.local)},
                        {"global_amplitude", amplitude(c.imperfection.global_amplitude)}};
   if (c.imperfection.local != LocalImperfection::none)
     imperfection["local_amplitude"] = amplitude(c.imperfection.local_amplitude);
   j["imperfection"] = imperfection;
-  json mesh = {{"layers", c.mesh.layers}};
+  json mesh = {{"layers", c.layers.layers}};
   if (c.kind == ModelKind::generated) {
-    mesh["flange_elements"] = c.mesh.flange_elements;
-    mesh["web_elements"] = c.mesh.web_elements;
-    mesh["aspect"] = c.mesh.aspect;
+    mesh["flange_elements"] = c.zone.flange_elements;
+    mesh["web_elements"] = c.zone.web_elements;
+    mesh["aspect"] = c.zone.aspect;
   }
   j["mesh"] = mesh;
   j["analysis"] = analysis(c.analysis, c.kind);
   j["buckling"] = {{"modes", c.buckling.modes}};
   j["output"] = {{"fields_every", c.output.fields_every}};
   return c.kind == ModelKind::general ? general_parts(c, std::move(j)) : j;
+}
+
+namespace {
+
+/// A JSON value as a TOML node; nulls are left out by the callers.
+toml::table to_toml_table(const json& object);
+
+toml::array to_toml_array(const json& array) {
+  toml::array out;
+  for (const json& v : array) {
+    if (v.is_object()) out.push_back(to_toml_table(v));
+    else if (v.is_array()) out.push_back(to_toml_array(v));
+    else if (v.is_boolean()) out.push_back(v.get<bool>());
+    else if (v.is_number_integer()) out.push_back(v.get<std::int64_t>());
+    else if (v.is_number()) out.push_back(v.get<double>());
+    else if (v.is_string()) out.push_back(v.get<std::string>());
+  }
+  return out;
+}
+
+toml::table to_toml_table(const json& object) {
+  toml::table out;
+  for (auto it = object.begin(); it != object.end(); ++it) {
+    const json& v = it.value();
+    if (v.is_null()) continue;
+    if (v.is_object()) out.insert(it.key(), to_toml_table(v));
+    else if (v.is_array()) out.insert(it.key(), to_toml_array(v));
+    else if (v.is_boolean()) out.insert(it.key(), v.get<bool>());
+    else if (v.is_number_integer()) out.insert(it.key(), v.get<std::int64_t>());
+    else if (v.is_number()) out.insert(it.key(), v.get<double>());
+    else if (v.is_string()) out.insert(it.key(), v.get<std::string>());
+  }
+  return out;
+}
+
+}  // namespace
+
+CaseInput case_from_echo(const json& echo, const std::filesystem::path& source) {
+  if (!echo.is_object()) throw InputError(source, 0, "input", echo.type_name(), "the input echo of a run (an object)");
+  json e = echo;
+  e.erase("file");
+  e.erase("kind");
+  if (e.contains("model") && e["model"].is_object()) e["model"].erase("mesh_path");
+  if (e.contains("section") && e["section"].is_object() && e["section"].value("designation", json()).is_string())
+    e["section"] = json{{"designation", e["section"]["designation"]}};
+  CaseInput c = detail::parse_case_table(to_toml_table(e), source);
+  c.file = echo.value("file", source.string());
+  return c;
 }
 
 }  // namespace rotcap

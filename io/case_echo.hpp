@@ -9,8 +9,16 @@
 
 #include <nlohmann/json.hpp>
 
+#include <filesystem>
+
 namespace rotcap {
 
 nlohmann::json to_json(const CaseInput& c);
+
+/// The case back from its echo (summary.json's "input"), read by the case-file reader itself: the
+/// echo's keys are the case file's, so the same schema and checks apply. "file" and "kind" are
+/// the echo's own; nulls are defaults; a section with a designation keeps only the designation.
+/// Messages name `source` (the summary.json); InputError for an echo the reader rejects.
+CaseInput case_from_echo(const nlohmann::json& echo, const std::filesystem::path& source);
 
 }  // namespace rotcap

@@ -1,5 +1,7 @@
 #include "io/case_file.hpp"
 
+#include "core/option_error.hpp"
+
 #include "io/amplitude.hpp"
 #include "io/case_file_parts.hpp"
 #include "io/input_text.hpp"
@@ -35,19 +37,8 @@ namespace {
 using detail::read_choice;
 using detail::TableReader;
 
-/// model/i_section.hpp validate() reports "section.key = value mm: expected bound"; that becomes
-/// an InputError at the key's line (the whole text as found when the form differs).
-[[noreturn]] void rethrow_section_error(const TableReader& r, const std::string& message) {
-  const std::size_t eq = message.find(" = "), colon = message.find(": expected ");
-  const std::string prefix = "section.";
-  if (message.rfind(prefix, 0) != 0 || eq == std::string::npos || colon == std::string::npos || colon < eq)
-    throw InputError(r.file(), r.line(), "section", message, "a section the plate model can represent");
-  const std::string key = message.substr(prefix.size(), eq - prefix.size());
-  r.fail(key, message.substr(eq + 3, colon - eq - 3), message.substr(colon + 11));
-}
-
 void read_section(TableReader r, CaseInput& c) {
-  SectionInput& s = c.section;
+  ISection& s = c.zone.section;
   static const char* kPlates[] = {"depth", "flange_width", "flange_thickness", "web_thickness",
                                   "root_radius", "weld_throat"};
   if (const std::optional<std::string> name = r.optional_string("designation")) {
@@ -60,45 +51,20 @@ void read_section(TableReader r, CaseInput& c) {
              "a section of the built-in table (IPE 80-600, HEA and HEB 100-1000, EN 10365)" +
                  did_you_mean(*name, names));
     }
-    s.designation = row->designation;
-    s.depth = row->h;
-    s.flange_width = row->b;
-    s.flange_thickness = row->tf;
-    s.web_thickness = row->tw;
-    s.root_radius = row->r;
+    s = ISection{row->designation, row->h, row->b, row->tf, row->tw, row->r, 0.0};
   } else {
-    s.depth = r.required_number("depth", "the overall depth h [mm] (or designation = \"IPE 300\")");
-    s.flange_width = r.required_number("flange_width", "the flange width b [mm]");
-    s.flange_thickness = r.required_number("flange_thickness", "the flange thickness tf [mm]");
-    s.web_thickness = r.required_number("web_thickness", "the web thickness tw [mm]");
-    s.root_radius = r.number("root_radius", 0.0);
+    // Values are checked by the section's own validate() (model/i_section.hpp) after parsing.
+    s.h = r.required_number("depth", "the overall depth h [mm] (or designation = \"IPE 300\")");
+    s.b = r.required_number("flange_width", "the flange width b [mm]");
+    s.tf = r.required_number("flange_thickness", "the flange thickness tf [mm]");
+    s.tw = r.required_number("web_thickness", "the web thickness tw [mm]");
+    s.r = r.number("root_radius", 0.0);
     s.weld_throat = r.number("weld_throat", 0.0);
-    r.check("depth", s.depth, s.depth > 0.0, "depth > 0");
-    r.check("flange_width", s.flange_width, s.flange_width > 0.0, "flange_width > 0");
-    r.check("flange_thickness", s.flange_thickness, s.flange_thickness > 0.0, "flange_thickness > 0");
-    r.check("web_thickness", s.web_thickness, s.web_thickness > 0.0, "web_thickness > 0");
-    r.check("flange_thickness", s.flange_thickness, 2.0 * s.flange_thickness < s.depth,
-            "2 flange_thickness < depth (" + format_number(s.depth) + ")");
-    r.check("web_thickness", s.web_thickness, s.web_thickness < s.flange_width,
-            "web_thickness < flange_width (" + format_number(s.flange_width) + ")");
-    // The remaining rules (fillets and welds leave flat plate parts) are the model's own.
-    ISection section;
-    section.h = s.depth;
-    section.b = s.flange_width;
-    section.tf = s.flange_thickness;
-    section.tw = s.web_thickness;
-    section.r = s.root_radius;
-    section.weld_throat = s.weld_throat;
-    try {
-      validate(section);
-    } catch (const std::invalid_argument& e) {
-      rethrow_section_error(r, e.what());
-    }
   }
   r.finish();
 }
 
-void read_steel_table(TableReader& r, SteelInput& s) {
+void read_steel_table(TableReader& r, SteelModel& s) {
   const toml::array* rows = r.optional_array("table");
   if (rows == nullptr)
     r.fail("table", "no value",
@@ -132,112 +98,85 @@ void read_steel_table(TableReader& r, SteelInput& s) {
 }
 
 void read_steel(TableReader r, CaseInput& c) {
-  SteelInput& s = c.steel;
+  // Values are checked by the steel model's own validate() (materials/steel_curve.hpp) after
+  // parsing; here: which keys each curve needs or does not take.
+  SteelModel& s = c.steel;
   s.E = r.number("E", s.E);
-  r.check("E", s.E, s.E > 0.0, "E > 0");
   s.nu = r.number("nu", s.nu);
-  r.check("nu", s.nu, s.nu >= 0.0 && s.nu < 0.5, "0 <= nu < 0.5");
-  s.curve = read_choice(r, "curve", s.curve);
-  const std::string curve = quote(enum_name(s.curve));
-  s.fy = r.optional_number("fy");
-  s.fu = r.optional_number("fu");
-  const bool needs_fy = c.kind == ModelKind::generated || s.curve == SteelCurve::elastic_plastic ||
-                        s.curve == SteelCurve::bilinear || s.curve == SteelCurve::quadlinear;
-  if (needs_fy && !s.fy)
+  s.kind = read_choice(r, "curve", s.kind);
+  const std::string curve = quote(enum_name(s.kind));
+  const std::optional<double> fy = r.optional_number("fy");
+  const std::optional<double> fu = r.optional_number("fu");
+  const bool needs_fy = c.kind == ModelKind::generated || s.kind == SteelCurveKind::elastic_plastic ||
+                        s.kind == SteelCurveKind::bilinear || s.kind == SteelCurveKind::quadlinear;
+  if (needs_fy && !fy)
     r.fail("fy", "no value",
            c.kind == ModelKind::generated
                ? "the yield strength fy [MPa] (it defines Mp)"
                : "the yield strength fy [MPa] for curve = " + curve +
                      (r.has("curve") ? "" : " (the default; curve = \"elastic\" needs no fy)"));
-  if (s.fy) r.check("fy", *s.fy, *s.fy > 0.0, "fy > 0");
-  const bool needs_fu = s.curve == SteelCurve::bilinear || s.curve == SteelCurve::quadlinear;
-  if (needs_fu && !s.fu) r.fail("fu", "no value", "the tensile strength fu [MPa] for curve = " + curve);
-  if (s.fu) r.check("fu", *s.fu, *s.fu > 0.0, "fu > 0");
-  if (s.fu && s.fy) {
-    if (s.curve == SteelCurve::bilinear)
-      r.check("fu", *s.fu, *s.fu > *s.fy, "fu > fy (" + format_number(*s.fy) + ") for curve = \"bilinear\"");
-    else
-      r.check("fu", *s.fu, *s.fu >= *s.fy, "fu >= fy (" + format_number(*s.fy) + ")");
-  }
-  if (s.curve == SteelCurve::bilinear) {
+  const bool needs_fu = s.kind == SteelCurveKind::bilinear || s.kind == SteelCurveKind::quadlinear;
+  if (needs_fu && !fu) r.fail("fu", "no value", "the tensile strength fu [MPa] for curve = " + curve);
+  if (s.kind == SteelCurveKind::bilinear)
     s.hardening_modulus = r.required_number("hardening_modulus",
                                             "the hardening modulus E_h [MPa] for curve = \"bilinear\"");
-    r.check("hardening_modulus", *s.hardening_modulus,
-            *s.hardening_modulus > 0.0 && *s.hardening_modulus < s.E,
-            "0 < hardening_modulus < E (" + format_number(s.E) + ")");
-  } else {
+  else
     r.forbid("hardening_modulus", "no hardening_modulus with curve = " + curve + " (bilinear only)");
-  }
-  if (s.curve == SteelCurve::table)
+  if (s.kind == SteelCurveKind::table)
     read_steel_table(r, s);
   else
     r.forbid("table", "no table with curve = " + curve + " (curve = \"table\" only)");
+  // A table defines its own yield stress (its first row); fu is only read by curves that use it.
+  if (fy)
+    s.fy = *fy;
+  else if (s.kind == SteelCurveKind::table)
+    s.fy = s.table.front()[0];
+  s.fu = fu.value_or(s.fy);
   r.finish();
 }
 
-void read_stiffeners(TableReader& r, MemberInput& m) {
+void read_stiffeners(TableReader& r, HingeZoneSpec& m) {
   const toml::node* n = r.node("stiffeners");
   if (n == nullptr) return;
   if (const toml::array* xs = n->as_array()) {
-    m.stiffeners = StiffenerLayout::positions;
-    for (std::size_t i = 0; i < xs->size(); ++i) {
-      const std::string key = r.key_path("stiffeners") + "[" + std::to_string(i) + "]";
-      const double x = detail::number_value(*xs->get(i), r.file(), key);
-      const int line = detail::node_line(*xs->get(i));
-      if (!(x >= 0.0 && x <= m.length))
-        throw InputError(r.file(), line, key, format_number(x),
-                         "0 <= x <= length (" + format_number(m.length) + ")");
-      if (!m.stiffener_positions.empty() && !(x > m.stiffener_positions.back()))
-        throw InputError(r.file(), line, key, format_number(x),
-                         "strictly increasing positions (after " +
-                             format_number(m.stiffener_positions.back()) + ")");
-      m.stiffener_positions.push_back(x);
-    }
+    // Positions are checked by the spec's own validate() (range and order).
+    m.stiffeners = StiffenerPlacement::positions;
+    for (std::size_t i = 0; i < xs->size(); ++i)
+      m.stiffener_positions.push_back(detail::number_value(
+          *xs->get(i), r.file(), r.key_path("stiffeners") + "[" + std::to_string(i) + "]"));
     return;
   }
   static const std::string kLayouts[] = {"supports_and_loads", "none"};
   if (n->as_string() == nullptr)
     r.fail("stiffeners", detail::describe_node(*n),
            "\"supports_and_loads\", \"none\" or an array of positions [x, ...] in mm");
-  m.stiffeners = static_cast<StiffenerLayout>(r.choice("stiffeners", kLayouts, 0));
+  m.stiffeners = static_cast<StiffenerPlacement>(r.choice("stiffeners", kLayouts, 0));
 }
 
 void read_member(TableReader r, CaseInput& c) {
-  MemberInput& m = c.member;
+  // Values are checked by the spec's own validate() (model/hinge_zone_mesher.hpp) after parsing;
+  // here: which keys a setup needs or does not take.
+  HingeZoneSpec& m = c.zone;
   if (!r.has("setup"))
-    r.fail("setup", "no value", "one of " + quote_list(enum_names<Setup>()));
+    r.fail("setup", "no value", "one of " + quote_list(enum_names<HingeSetup>()));
   m.setup = read_choice(r, "setup", m.setup);
   m.length = r.required_number("length", "the member length [mm] (cantilever: support to load; beams: span)");
-  r.check("length", m.length, m.length > 0.0, "length > 0");
-  if (m.setup == Setup::four_point) {
+  if (m.setup == HingeSetup::four_point)
     m.load_spacing = r.required_number("load_spacing",
                                        "the distance between the two loads [mm] for setup = \"four_point\"");
-    r.check("load_spacing", *m.load_spacing, *m.load_spacing > 0.0 && *m.load_spacing < m.length,
-            "0 < load_spacing < length (" + format_number(m.length) + ")");
-  } else {
+  else
     r.forbid("load_spacing", "no load_spacing with setup = " + quote(enum_name(m.setup)) +
                                  " (four_point only)");
-  }
   m.axial_load_ratio = r.number("axial_load_ratio", m.axial_load_ratio);
-  r.check("axial_load_ratio", m.axial_load_ratio, m.axial_load_ratio >= 0.0 && m.axial_load_ratio < 1.0,
-          "0 <= axial_load_ratio < 1 (N / N_pl, compression positive)");
-  const bool beam = m.setup == Setup::three_point || m.setup == Setup::four_point;
-  r.check("axial_load_ratio", m.axial_load_ratio, !beam || m.axial_load_ratio == 0.0,
-          "0 for setup = " + quote(enum_name(m.setup)) +
-              " (an axial force needs the rigid end sections of cantilever or uniform_moment)");
-  if (m.setup == Setup::cantilever)
-    m.support = read_choice(r, "support", m.support);
+  if (m.setup == HingeSetup::cantilever)
+    m.cantilever_support = read_choice(r, "support", m.cantilever_support);
   else
     r.forbid("support", "no support with setup = " + quote(enum_name(m.setup)) + " (cantilever only)");
   read_stiffeners(r, m);
-  if (m.stiffeners == StiffenerLayout::none) {
+  if (m.stiffeners == StiffenerPlacement::none)
     r.forbid("stiffener_thickness", "no stiffener_thickness with stiffeners = \"none\"");
-  } else {
+  else
     m.stiffener_thickness = r.optional_number("stiffener_thickness");
-    if (m.stiffener_thickness)
-      r.check("stiffener_thickness", *m.stiffener_thickness, *m.stiffener_thickness > 0.0,
-              "stiffener_thickness > 0");
-  }
   r.finish();
 }
 
@@ -247,13 +186,11 @@ void read_restraints(TableReader r, CaseInput& c) {
       const std::string key = r.key_path("lateral") + "[" + std::to_string(i) + "]";
       const toml::node& item = *list->get(i);
       TableReader e(r.file(), &detail::table_value(item, r.file(), key), key, detail::node_line(item));
-      LateralRestraint lr;
+      LateralBrace lr;
       lr.x = e.required_number("x", "the restraint position x [mm] along the member");
-      e.check("x", lr.x, lr.x >= 0.0 && lr.x <= c.member.length,
-              "0 <= x <= length (" + format_number(c.member.length) + ")");
       lr.flange = read_choice(e, "flange", lr.flange);
       e.finish();
-      c.lateral_restraints.push_back(lr);
+      c.zone.lateral_restraints.push_back(lr);
     }
   }
   r.finish();
@@ -304,22 +241,15 @@ void read_imperfection(TableReader r, CaseInput& c) {
 }
 
 void read_mesh(TableReader r, CaseInput& c) {
-  MeshInput& m = c.mesh;
   if (c.kind == ModelKind::generated) {
-    m.flange_elements = r.integer("flange_elements", m.flange_elements);
-    r.check("flange_elements", m.flange_elements, m.flange_elements >= 4 && m.flange_elements % 2 == 0,
-            "an even flange_elements >= 4 (the web meets the flange at its middle node)");
-    m.web_elements = r.integer("web_elements", m.web_elements);
-    r.check("web_elements", m.web_elements, m.web_elements >= 4, "web_elements >= 4");
-    m.aspect = r.number("aspect", m.aspect);
-    r.check("aspect", m.aspect, m.aspect > 0.0, "aspect > 0");
+    c.zone.flange_elements = r.integer("flange_elements", c.zone.flange_elements);
+    c.zone.web_elements = r.integer("web_elements", c.zone.web_elements);
+    c.zone.aspect = r.number("aspect", c.zone.aspect);
   } else {
     for (const char* key : {"flange_elements", "web_elements", "aspect"})
       r.forbid(key, "only mesh.layers in a general model (the mesh comes from [model] mesh)");
   }
-  m.layers = r.integer("layers", m.layers);
-  r.check("layers", m.layers, m.layers >= 3 && m.layers <= 15 && m.layers % 2 == 1,
-          "an odd number of layers, 3 <= layers <= 15");
+  c.layers.layers = r.integer("layers", c.layers.layers);
   r.finish();
 }
 
@@ -382,15 +312,47 @@ void read_root(TableReader& root, CaseInput& c) {
   root.finish();
 }
 
-CaseInput parse_table(const toml::table& table, const std::filesystem::path& file) {
+/// The line of a dotted key path ("member.stiffeners[2]", "steel.fy") in the file; the nearest
+/// enclosing value's line when the key is absent (a default), 0 when nothing of it is there.
+int line_of_path(const toml::table& table, std::string path) {
+  while (!path.empty()) {
+    if (const toml::node* n = table.at_path(path).node()) return detail::node_line(*n);
+    const std::size_t cut = path.find_last_of(".[");
+    path = cut == std::string::npos ? std::string() : path.substr(0, cut);
+  }
+  return 0;
+}
+
+/// Each component validates the options it owns, right after parsing; its OptionError becomes an
+/// InputError at the key's line.
+void validate_components(const toml::table& table, CaseInput& c) {
+  try {
+    validate(c.steel);
+    c.layers.validate();
+    c.analysis.path.validate();
+    if (c.kind == ModelKind::generated) {
+      c.zone.fy = c.steel.fy;
+      validate(c.zone);
+    }
+  } catch (const OptionError& e) {
+    throw InputError(c.file, line_of_path(table, e.key()), e.key(), e.found(), e.expected());
+  }
+}
+
+}  // namespace
+
+namespace detail {
+
+CaseInput parse_case_table(const toml::table& table, const std::filesystem::path& file) {
   CaseInput c;
   c.file = file;
   TableReader root(file, &table, "", 1);
   read_root(root, c);
+  validate_components(table, c);
   return c;
 }
 
-}  // namespace
+}  // namespace detail
 
 CaseInput parse_case_text(std::string_view text, const std::filesystem::path& file) {
   toml::table table;
@@ -401,7 +363,7 @@ CaseInput parse_case_text(std::string_view text, const std::filesystem::path& fi
                      "a TOML syntax error: " + std::string(e.description()),
                      "valid TOML (https://toml.io/en/v1.0.0)");
   }
-  return parse_table(table, file);
+  return detail::parse_case_table(table, file);
 }
 
 CaseInput read_case_file(const std::filesystem::path& path) {

@@ -17,6 +17,9 @@ Enum read_choice(TableReader& r, std::string_view key, Enum fallback) {
 GroupDof read_group_dof(const toml::node& node, const std::filesystem::path& file,
                         const std::string& key_path);
 
+/// The whole case from a parsed table (read_case_file, parse_case_text, case_from_echo).
+CaseInput parse_case_table(const toml::table& table, const std::filesystem::path& file);
+
 /// [analysis]; needs c.kind.
 void read_analysis(TableReader& table, CaseInput& c);
 /// [model], [[thickness]], [[support]], [[load]] from the root table; needs c.file.

@@ -3,28 +3,32 @@
 namespace rotcap {
 
 namespace {
-// The spellings, in the order of each enum's values.
+// The case-file spellings, in the order of each enum's values.
 const std::string kModelKind[] = {"generated", "general"};
-const std::string kSteelCurve[] = {"elastic", "elastic_plastic", "bilinear", "quadlinear", "table"};
+// The steel curves' spellings are materials' own (steel_curve_kind_name, used in its messages).
+const std::string kSteelCurve[] = {
+    steel_curve_kind_name(SteelCurveKind::elastic), steel_curve_kind_name(SteelCurveKind::elastic_plastic),
+    steel_curve_kind_name(SteelCurveKind::bilinear), steel_curve_kind_name(SteelCurveKind::quadlinear),
+    steel_curve_kind_name(SteelCurveKind::table)};
 const std::string kSetup[] = {"cantilever", "three_point", "four_point", "uniform_moment"};
-const std::string kStiffenerLayout[] = {"supports_and_loads", "none", "positions"};
-const std::string kSupportKind[] = {"fixed", "symmetry"};
-const std::string kFlange[] = {"both", "top", "bottom"};
+const std::string kStiffenerPlacement[] = {"supports_and_loads", "none", "positions"};
+const std::string kCantileverSupport[] = {"fixed", "symmetry"};
+const std::string kRestrainedFlange[] = {"both", "top", "bottom"};
 const std::string kLocalImperfection[] = {"none", "buckling_mode", "half_sine"};
-const std::string kResidualPattern[] = {"none", "hot_rolled", "welded"};
+const std::string kResidualStress[] = {"none", "hot_rolled", "welded"};
 const std::string kControl[] = {"linear", "load", "displacement", "arc_length"};
 const std::string kArcLengthForm[] = {"cylindrical", "normal_plane"};
 }  // namespace
 
 template <> std::span<const std::string> enum_names<ModelKind>() { return kModelKind; }
-template <> std::span<const std::string> enum_names<SteelCurve>() { return kSteelCurve; }
-template <> std::span<const std::string> enum_names<Setup>() { return kSetup; }
-template <> std::span<const std::string> enum_names<StiffenerLayout>() { return kStiffenerLayout; }
-template <> std::span<const std::string> enum_names<SupportKind>() { return kSupportKind; }
-template <> std::span<const std::string> enum_names<Flange>() { return kFlange; }
+template <> std::span<const std::string> enum_names<SteelCurveKind>() { return kSteelCurve; }
+template <> std::span<const std::string> enum_names<HingeSetup>() { return kSetup; }
+template <> std::span<const std::string> enum_names<StiffenerPlacement>() { return kStiffenerPlacement; }
+template <> std::span<const std::string> enum_names<CantileverSupport>() { return kCantileverSupport; }
+template <> std::span<const std::string> enum_names<RestrainedFlange>() { return kRestrainedFlange; }
 template <> std::span<const std::string> enum_names<LocalImperfection>() { return kLocalImperfection; }
-template <> std::span<const std::string> enum_names<ResidualPattern>() { return kResidualPattern; }
+template <> std::span<const std::string> enum_names<ResidualStressKind>() { return kResidualStress; }
 template <> std::span<const std::string> enum_names<Control>() { return kControl; }
-template <> std::span<const std::string> enum_names<ArcLengthForm>() { return kArcLengthForm; }
+template <> std::span<const std::string> enum_names<ArcLength::Form>() { return kArcLengthForm; }
 
 }  // namespace rotcap

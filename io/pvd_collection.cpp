@@ -1,34 +1,14 @@
 #include "io/pvd_collection.hpp"
 
 #include "io/atomic_file.hpp"
-
 #include "io/input_error.hpp"
+#include "io/xml_text.hpp"
 
 #include <cstdio>
 #include <sstream>
 #include <fstream>
 
 namespace rotcap {
-
-namespace {
-
-/// XML attribute value escaping (XML 1.0, section 2.4).
-std::string xml_escape(const std::string& s) {
-  std::string out;
-  for (char c : s) {
-    switch (c) {
-      case '&': out += "&amp;"; break;
-      case '<': out += "&lt;"; break;
-      case '>': out += "&gt;"; break;
-      case '"': out += "&quot;"; break;
-      case '\'': out += "&apos;"; break;
-      default: out += c;
-    }
-  }
-  return out;
-}
-
-}  // namespace
 
 PvdCollection::PvdCollection(std::filesystem::path pvd_file) : file_(std::move(pvd_file)) { write(); }
 
@@ -48,7 +28,7 @@ void PvdCollection::write() const {
   for (const Entry& e : entries_) {
     std::snprintf(time, sizeof time, "%.17g", e.time);
     out << "    <DataSet timestep=\"" << time << "\" group=\"\" part=\"0\" file=\""
-        << xml_escape(e.file) << "\"/>\n";
+        << escape_xml_text(e.file) << "\"/>\n";
   }
   out << "  </Collection>\n</VTKFile>\n";
   write_file_atomically(file_, out.str());

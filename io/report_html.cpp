@@ -3,6 +3,7 @@
 
 #include "io/input_error.hpp"
 #include "io/svg_plot.hpp"
+#include "io/xml_text.hpp"
 
 #include <algorithm>
 #include <cctype>

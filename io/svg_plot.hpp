@@ -104,10 +104,6 @@ struct AxisTicks {
 /// expand: widen [lo, hi] to whole steps (auto range); else keep lo, hi (explicit limits).
 AxisTicks nice_ticks(double lo, double hi, int target, bool expand);
 
-/// XML-escapes text for an element's content or a quoted attribute (& < > " '), replacing
-/// invalid UTF-8 and XML 1.0 control characters by U+FFFD.
-std::string escape_xml_text(std::string_view text);
-
 /// The plot as one <svg> element (see the header comment).
 std::string render_svg(const LinePlot& plot);
 

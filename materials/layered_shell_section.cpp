@@ -1,5 +1,7 @@
 #include "materials/layered_shell_section.hpp"
 
+#include "core/option_error.hpp"
+
 #include <cmath>
 #include <limits>
 #include <stdexcept>
@@ -7,14 +9,17 @@
 
 namespace rotcap {
 
+void LayeredShellSection::Options::validate() const {
+  if (layers < 3 || layers > 15 || layers % 2 == 0)
+    throw OptionError("mesh.layers", std::to_string(layers), "an odd number of layers, 3 <= layers <= 15");
+}
+
 LayeredShellSection::LayeredShellSection(J2PlaneStress material, double t, const Options& options)
     : material_(std::move(material)), t_(t), n_(options.layers) {
   if (!(t > 0.0) || !std::isfinite(t))
     throw std::invalid_argument("LayeredShellSection: thickness t = " + std::to_string(t) +
                                 " must be > 0");
-  if (n_ < 3 || n_ > 15 || n_ % 2 == 0)
-    throw std::invalid_argument("LayeredShellSection: layers = " + std::to_string(n_) +
-                                " must be odd with 3 <= layers <= 15 (mesh.layers)");
+  options.validate();
   // Composite Simpson: h = t/(n-1), weights h/3 [1, 4, 2, ..., 4, 1].
   const double h = t / (n_ - 1);
   z_.resize(static_cast<std::size_t>(n_));

@@ -44,6 +44,8 @@ class LayeredShellSection final : public ShellSection {
  public:
   struct Options {
     int layers = 5;  ///< integration points through the thickness, odd, 3 <= n <= 15
+    /// Throws OptionError("mesh.layers", ...) for a count outside the rule above.
+    void validate() const;
   };
 
   /// t > 0 [mm]; throws std::invalid_argument naming the broken condition.

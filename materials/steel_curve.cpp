@@ -1,35 +1,33 @@
 #include "materials/steel_curve.hpp"
 
+#include "core/check.hpp"
+#include "core/option_error.hpp"
+#include "core/text_format.hpp"
+
 #include <algorithm>
 #include <cmath>
-#include <sstream>
 #include <stdexcept>
 
 namespace rotcap {
 
 namespace {
 
-std::string num(double v) {
-  std::ostringstream s;
-  s.precision(10);
-  s << v;
-  return s.str();
-}
-
 [[noreturn]] void fail(const std::string& message) { throw std::invalid_argument(message); }
 
+[[noreturn]] void reject(const std::string& key, double found, const std::string& expected) {
+  throw OptionError(key, format_number(found), expected);
+}
+
 void require_elastic_constants(const SteelModel& s) {
-  if (!(s.E > 0.0) || !std::isfinite(s.E)) fail("steel.E = " + num(s.E) + " must be > 0");
-  if (!(s.nu > -1.0 && s.nu < 0.5))
-    fail("steel.nu = " + num(s.nu) + " must satisfy -1 < nu < 0.5");
+  if (!(s.E > 0.0) || !std::isfinite(s.E)) reject("steel.E", s.E, "E > 0 [MPa]");
+  if (!(s.nu >= 0.0 && s.nu < 0.5)) reject("steel.nu", s.nu, "0 <= nu < 0.5");
 }
 
 void require_strengths(const SteelModel& s, bool fu_strictly_above) {
-  if (!(s.fy > 0.0) || !std::isfinite(s.fy)) fail("steel.fy = " + num(s.fy) + " must be > 0");
+  require_yield_strength(s.fy);
   if (!std::isfinite(s.fu) || s.fu < s.fy || (fu_strictly_above && s.fu == s.fy))
-    fail("steel.fu = " + num(s.fu) + (fu_strictly_above ? " must be > " : " must be >= ") +
-         "steel.fy = " + num(s.fy) + " for steel.curve = \"" + steel_curve_kind_name(s.kind) +
-         "\"");
+    reject("steel.fu", s.fu, std::string(fu_strictly_above ? "fu > fy (" : "fu >= fy (") + format_number(s.fy) +
+                           ") for curve = \"" + steel_curve_kind_name(s.kind) + "\"");
 }
 
 }  // namespace
@@ -45,22 +43,14 @@ const char* steel_curve_kind_name(SteelCurveKind kind) {
   return "?";
 }
 
-bool parse_steel_curve_kind(const std::string& name, SteelCurveKind& kind) {
-  for (SteelCurveKind k : {SteelCurveKind::elastic, SteelCurveKind::elastic_plastic,
-                           SteelCurveKind::bilinear, SteelCurveKind::quadlinear,
-                           SteelCurveKind::table}) {
-    if (name == steel_curve_kind_name(k)) {
-      kind = k;
-      return true;
-    }
-  }
-  return false;
+void require_yield_strength(double fy) {
+  if (!(fy > 0.0) || !std::isfinite(fy)) reject("steel.fy", fy, "fy > 0 [MPa]");
 }
 
 QuadlinearParameters yun_gardner_quadlinear(double E, double fy, double fu) {
   if (!(E > 0.0) || !(fy > 0.0) || !(fu >= fy))
-    fail("yun_gardner_quadlinear: need E > 0 and 0 < fy <= fu; got E = " + num(E) +
-         ", fy = " + num(fy) + ", fu = " + num(fu));
+    fail("yun_gardner_quadlinear: need E > 0 and 0 < fy <= fu; got E = " + format_number(E) +
+         ", fy = " + format_number(fy) + ", fu = " + format_number(fu));
   // Yun & Gardner (2017), J. Constr. Steel Res. 133:36-46 -- formulas FROM MEMORY
   // (references.md section 5, status MEMORY).
   QuadlinearParameters q{};
@@ -76,50 +66,48 @@ QuadlinearParameters yun_gardner_quadlinear(double E, double fy, double fu) {
 }
 
 void validate(const SteelModel& s, const SteelCurveOptions& options) {
-  if (options.points_per_segment < 1 || options.points_per_segment > 1000)
-    fail("SteelCurveOptions.points_per_segment = " + std::to_string(options.points_per_segment) +
-         " must satisfy 1 <= n <= 1000");
-  if (!(options.max_engineering_strain > 0.0))
-    fail("SteelCurveOptions.max_engineering_strain = " + num(options.max_engineering_strain) +
-         " must be > 0");
+  ROTCAP_CHECK(options.points_per_segment >= 1 && options.points_per_segment <= 1000,
+               "SteelCurveOptions.points_per_segment = " + std::to_string(options.points_per_segment));
+  ROTCAP_CHECK(options.max_engineering_strain > 0.0,
+               "SteelCurveOptions.max_engineering_strain = " + format_number(options.max_engineering_strain));
   require_elastic_constants(s);
   switch (s.kind) {
     case SteelCurveKind::elastic: return;
     case SteelCurveKind::elastic_plastic:
-      if (!(s.fy > 0.0) || !std::isfinite(s.fy)) fail("steel.fy = " + num(s.fy) + " must be > 0");
+      require_yield_strength(s.fy);
       return;
     case SteelCurveKind::bilinear: {
       require_strengths(s, true);
       if (!(s.hardening_modulus > 0.0 && s.hardening_modulus < s.E))
-        fail("steel.hardening_modulus = " + num(s.hardening_modulus) +
-             " must satisfy 0 < E_h < steel.E = " + num(s.E) +
-             " for steel.curve = \"bilinear\" (use \"elastic_plastic\" for E_h = 0)");
+        reject("steel.hardening_modulus", s.hardening_modulus,
+               "0 < hardening_modulus < E (" + format_number(s.E) +
+                   ") for curve = \"bilinear\" (use \"elastic_plastic\" for E_h = 0)");
       const double eps_u = s.fy / s.E + (s.fu - s.fy) / s.hardening_modulus;
       if (eps_u > options.max_engineering_strain)
-        fail("steel.hardening_modulus = " + num(s.hardening_modulus) + " reaches steel.fu = " +
-             num(s.fu) + " only at engineering strain " + num(eps_u) + " > " +
-             num(options.max_engineering_strain) +
-             ", beyond the validity of the engineering-to-true conversion; use a larger "
-             "modulus or steel.curve = \"table\"");
+        reject("steel.hardening_modulus", s.hardening_modulus,
+               "a modulus that reaches fu (" + format_number(s.fu) + ") by engineering strain " +
+                   format_number(options.max_engineering_strain) + " (this one at " + format_number(eps_u) +
+                   ", beyond the engineering-to-true conversion), or curve = \"table\"");
       return;
     }
     case SteelCurveKind::quadlinear: {
       require_strengths(s, false);
       const QuadlinearParameters q = yun_gardner_quadlinear(s.E, s.fy, s.fu);
       if (!(q.eps_y < q.eps_sh))
-        fail("steel.fy / steel.E = " + num(q.eps_y) +
-             " must be below the strain-hardening onset eps_sh = " + num(q.eps_sh) +
-             " of the quad-linear model");
+        reject("steel.fy", s.fy,
+               "a yield strain fy / E (" + format_number(q.eps_y) + ") below the strain-hardening onset eps_sh = " +
+                   format_number(q.eps_sh) + " of the quad-linear model");
       if (q.eps_u > options.max_engineering_strain)
-        fail("quad-linear ultimate strain eps_u = " + num(q.eps_u) + " (steel.fy = " + num(s.fy) +
-             ", steel.fu = " + num(s.fu) + ") exceeds " + num(options.max_engineering_strain));
+        reject("steel.fu", s.fu,
+               "a quad-linear ultimate strain eps_u (" + format_number(q.eps_u) + " with fy = " + format_number(s.fy) +
+                   ") within " + format_number(options.max_engineering_strain));
       return;
     }
     case SteelCurveKind::table: {
-      if (s.table.empty()) fail("steel.table must not be empty for steel.curve = \"table\"");
+      if (s.table.empty()) throw OptionError("steel.table", "an empty table", "rows [true stress, plastic strain]");
       for (std::size_t i = 0; i < s.table.size(); ++i)
         if (!std::isfinite(s.table[i][0]) || !std::isfinite(s.table[i][1]))
-          fail("steel.table row " + std::to_string(i) + " holds a non-finite value");
+          throw OptionError("steel.table[" + std::to_string(i) + "]", "a non-finite value", "finite numbers");
       return;  // ordering, sign and slope: checked by HardeningCurve with the row index
     }
   }

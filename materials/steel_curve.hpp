@@ -40,12 +40,13 @@ enum class SteelCurveKind { elastic, elastic_plastic, bilinear, quadlinear, tabl
 
 /// Case-file spelling ("elastic", "elastic_plastic", ...).
 const char* steel_curve_kind_name(SteelCurveKind kind);
-/// Parses the case-file spelling; returns false for anything else.
-bool parse_steel_curve_kind(const std::string& name, SteelCurveKind& kind);
+/// The one check of a yield strength, wherever fy is used (sections, Mp, residual stresses):
+/// throws OptionError("steel.fy", value, "fy > 0 [MPa]") unless 0 < fy < infinity.
+void require_yield_strength(double fy);
 
 struct SteelModel {
   double E = 210000.0;   ///< Young's modulus [MPa], > 0
-  double nu = 0.3;       ///< Poisson's ratio, -1 < nu < 0.5
+  double nu = 0.3;       ///< Poisson's ratio, 0 <= nu < 0.5
   double fy = 355.0;     ///< yield strength [MPa], > 0
   double fu = 490.0;     ///< tensile strength [MPa], >= fy (bilinear: > fy)
   SteelCurveKind kind = SteelCurveKind::quadlinear;
@@ -81,8 +82,9 @@ struct QuadlinearParameters {
 /// Requires E > 0 and 0 < fy <= fu (throws std::invalid_argument otherwise).
 QuadlinearParameters yun_gardner_quadlinear(double E, double fy, double fu);
 
-/// Checks every field the model's kind uses; throws std::invalid_argument naming the case-file
-/// key (steel.E, steel.fu, ...), its value and the broken constraint.
+/// Checks every field the model's kind uses; throws OptionError naming the case-file key ("steel.E",
+/// "steel.nu", "steel.fy", "steel.fu", "steel.hardening_modulus"), its value and the rule, or std::invalid_argument for a
+/// combination no single key owns (quad-linear strains, conversion limits, a non-finite table row).
 void validate(const SteelModel& steel, const SteelCurveOptions& options = {});
 
 /// True unless kind is elastic.

@@ -1,5 +1,9 @@
 #include "model/hinge_zone_mesher.hpp"
 
+#include "core/option_error.hpp"
+#include "core/text_format.hpp"
+#include "materials/steel_curve.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <set>
@@ -15,22 +19,19 @@ constexpr double kMaxRatio = 1.25;   // accepted ratio of neighbouring element l
 constexpr double kMaxSize = 3.0;     // largest element, in hinge element lengths
 constexpr int kTopFlange = 0, kBottomFlange = 1, kWeb = 2, kStiffener = 3;
 
-std::string num(double v) {
-  std::ostringstream s;
-  s.precision(8);
-  s << v;
-  return s.str();
-}
+std::string num(double v) { return format_number(v); }
 
 [[noreturn]] void reject(const std::string& key, const std::string& found, const std::string& expected) {
-  throw std::invalid_argument(key + " = " + found + ": expected " + expected);
+  throw OptionError(key, found, expected);
 }
 
-void validate_spec(const HingeZoneSpec& s) {
+}  // namespace
+
+void validate(const HingeZoneSpec& s) {
   validate(s.section);
   const double L = s.length;
   if (!(L > 0.0) || !std::isfinite(L)) reject("member.length", num(L) + " mm", "a finite length > 0");
-  if (!(s.fy > 0.0) || !std::isfinite(s.fy)) reject("steel.fy", num(s.fy) + " MPa", "a finite value > 0");
+  require_yield_strength(s.fy);
   if (s.flange_elements < 4 || s.flange_elements % 2 != 0)
     reject("mesh.flange_elements", std::to_string(s.flange_elements),
            "an even number >= 4 (the web meets the flange at its centre line)");
@@ -58,6 +59,9 @@ void validate_spec(const HingeZoneSpec& s) {
     const double x = s.stiffener_positions[k];
     if (!(x >= 0.0 && x <= L))
       reject("member.stiffeners[" + std::to_string(k) + "]", num(x) + " mm", "0 <= x <= length = " + num(L) + " mm");
+    if (k > 0 && !(x > s.stiffener_positions[k - 1]))
+      reject("member.stiffeners[" + std::to_string(k) + "]", num(x) + " mm",
+             "strictly increasing positions (after " + num(s.stiffener_positions[k - 1]) + " mm)");
   }
   for (std::size_t k = 0; k < s.lateral_restraints.size(); ++k) {
     const double x = s.lateral_restraints[k].x;
@@ -66,6 +70,8 @@ void validate_spec(const HingeZoneSpec& s) {
              "0 <= x <= length = " + num(L) + " mm");
   }
 }
+
+namespace {
 
 // ---- Stations along x ---------------------------------------------------------------------
 // The target element length s(x) is sampled on a fine grid per span between hard points (the
@@ -215,7 +221,7 @@ Support support(const std::string& group, std::initializer_list<Dof> dofs) {
 }  // namespace
 
 HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
-  validate_spec(spec);
+  validate(spec);
   const ISection& sec = spec.section;
   const double L = spec.length;
   const int nf = spec.flange_elements, nw = spec.web_elements;

@@ -107,20 +107,19 @@ struct HingeZoneSpec {
   std::vector<double> stiffener_positions;    ///< extra stiffeners, x [mm] in [0, L]
   std::optional<double> stiffener_thickness;  ///< [mm] > 0; default tf
   std::vector<LateralBrace> lateral_restraints;
-  int flange_elements = 8;    ///< across the full flange width; even, >= 4
-  int web_elements = 10;      ///< over the web depth h - tf; >= 4
+  /// Mesh defaults: the demo mesh study's converged level, 9 elements per flange outstand
+  /// (bench/results/demo_mesh_study.txt); coarser meshes overstate the rotations.
+  int flange_elements = 18;   ///< across the full flange width; even, >= 4
+  int web_elements = 23;      ///< over the web depth h - tf; >= 4
   double aspect = 1.0;        ///< element length / flange element width in the hinge region, > 0
   double axial_load_ratio = 0.0;  ///< N / (A_plate fy), 0 <= n < 1; cantilever, uniform_moment only
   double fy = 355.0;          ///< [MPa] > 0, for Mp and N
   CantileverSupport cantilever_support = CantileverSupport::fixed;
 };
 
-/// How the hinge rotation follows from the displacements: theta = sum_i weights[i] * u(nodes[i], dof).
-struct HingeRotation {
-  std::vector<int> nodes;
-  Dof dof = Dof::uz;
-  std::vector<double> weights;  ///< [1/mm] for translations, [-] for rotations
-};
+/// How the hinge rotation follows from the displacements: theta = sum_i weights[i] * u(nodes[i], dof)
+/// (divisor 1; weights [1/mm] for translations, [-] for rotations).
+using HingeRotation = DofCombination;
 
 struct HingeZoneModel {
   ShellModel model;
@@ -139,11 +138,15 @@ struct HingeZoneModel {
   HingeRotation rotation;
 };
 
-/// Builds the model. Throws std::invalid_argument naming the case-file key of a bad value
+/// Checks every field of the spec (section, fy, mesh counts, setup-specific keys); throws OptionError
+/// naming the case-file key of the first bad value
 /// ("member.length", "member.load_spacing", "member.axial_load_ratio", "member.stiffeners",
 /// "member.stiffeners[k]" (k from 0),
 /// "member.stiffener_thickness", "restraints.lateral[k].x", "mesh.flange_elements",
 /// "mesh.web_elements", "mesh.aspect", "steel.fy", or a "section.*" key from validate()).
+void validate(const HingeZoneSpec& spec);
+
+/// Builds the model (validates the spec first).
 HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec);
 
 /// Beam-theory hinge rotation at M = Mp by the same definition as HingeZoneModel::rotation, for

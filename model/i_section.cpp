@@ -1,24 +1,22 @@
 #include "model/i_section.hpp"
 
+#include "core/option_error.hpp"
+#include "core/text_format.hpp"
+#include "materials/steel_curve.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <numbers>
-#include <sstream>
 #include <stdexcept>
 
 namespace rotcap {
 
 namespace {
 
-std::string num(double v) {
-  std::ostringstream s;
-  s.precision(6);
-  s << v;
-  return s.str();
-}
+std::string num(double v) { return format_number(v); }
 
 [[noreturn]] void reject(const std::string& key, double found, const std::string& expected) {
-  throw std::invalid_argument(key + " = " + num(found) + " mm: expected " + expected);
+  throw OptionError(key, num(found) + " mm", expected);
 }
 
 void require_positive(const std::string& key, double v) {
@@ -133,12 +131,12 @@ SectionProperties plate_model_properties(const ISection& s) {
 }
 
 double elastic_moment(const SectionProperties& p, double fy) {
-  if (!(fy > 0.0)) throw std::invalid_argument("steel.fy = " + num(fy) + " MPa: expected > 0");
+  require_yield_strength(fy);
   return fy * p.Wel_y;
 }
 
 double plastic_moment(const SectionProperties& p, double fy) {
-  if (!(fy > 0.0)) throw std::invalid_argument("steel.fy = " + num(fy) + " MPa: expected > 0");
+  require_yield_strength(fy);
   return fy * p.Wpl_y;
 }
 

@@ -42,7 +42,7 @@ struct SectionProperties {
   double Avz = 0.0;    ///< shear area for a load parallel to the web [mm^2]
 };
 
-/// Throws std::invalid_argument naming the case-file key of the first bad dimension
+/// Throws OptionError naming the case-file key of the first bad dimension
 /// ("section.depth", "section.flange_width", "section.flange_thickness", "section.web_thickness",
 /// "section.root_radius", "section.weld_throat") with the value found and the bound expected:
 /// every dimension positive (r, a non-negative) and finite; tf < h/2; tw < b; the flange outstand
@@ -64,7 +64,7 @@ SectionProperties real_section_properties(const ISection& s);
 /// Calls validate(s).
 SectionProperties plate_model_properties(const ISection& s);
 
-/// Elastic moment Mel = fy Wel_y [N mm] for fy > 0 [MPa].
+/// Elastic moment Mel = fy Wel_y [N mm] for fy > 0 [MPa] (require_yield_strength).
 double elastic_moment(const SectionProperties& p, double fy);
 /// Plastic moment Mp = fy Wpl_y [N mm] for fy > 0 [MPa].
 double plastic_moment(const SectionProperties& p, double fy);

@@ -1,5 +1,7 @@
 #include "model/residual_stress.hpp"
 
+#include "materials/steel_curve.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
@@ -61,7 +63,7 @@ ResidualStressPattern::ResidualStressPattern(ResidualStressKind kind, const ISec
                                              const ResidualStressOptions& options)
     : kind_(kind), section_(section), fy_(fy), options_(options) {
   validate(section);
-  if (!(fy > 0.0) || !std::isfinite(fy)) throw std::invalid_argument("steel.fy = " + num(fy) + " MPa: expected > 0");
+  require_yield_strength(fy);
   const double c = options.welded_compression;
   if (!(c > 0.0 && c < 1.0))
     throw std::invalid_argument("residual_stress.welded_compression = " + num(c) + ": expected 0 < c < 1");

@@ -1,5 +1,7 @@
 #include "model/section_class.hpp"
 
+#include "materials/steel_curve.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <numbers>
@@ -39,8 +41,7 @@ PartClassification part(double c, double t, const std::array<double, 3>& limits)
 
 SectionClassification classify_section(const ISection& s, double fy, double axial_ratio) {
   validate(s);
-  if (!(fy > 0.0) || !std::isfinite(fy))
-    throw std::invalid_argument("steel.fy = " + num(fy) + " MPa: expected a finite value > 0");
+  require_yield_strength(fy);
   if (!(axial_ratio >= 0.0 && axial_ratio <= 1.0))
     throw std::invalid_argument("member.axial_load_ratio = " + num(axial_ratio) +
                                 ": expected 0 <= N/Npl <= 1 (compression positive)");

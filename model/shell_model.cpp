@@ -1,5 +1,7 @@
 #include "model/shell_model.hpp"
 
+#include "core/check.hpp"
+
 #include <Eigen/Geometry>
 #include <stdexcept>
 
@@ -99,6 +101,24 @@ void validate_topology(const ShellModel& model) {
     for (const auto& l : *loads)
       if (!model.groups.count(l.group))
       throw std::invalid_argument("load refers to group '" + l.group + "', which does not exist");
+}
+
+double DofCombination::value(const Eigen::VectorXd& u) const {
+  ROTCAP_CHECK(weights.size() == nodes.size(), "one weight per node");
+  double sum = 0.0;
+  for (std::size_t i = 0; i < nodes.size(); ++i) sum += weights[i] * u[kDofsPerNode * nodes[i] + static_cast<int>(dof)];
+  return sum / divisor;
+}
+
+DofCombination group_mean(const ShellModel& model, const std::string& group, Dof dof) {
+  const auto it = model.groups.find(group);
+  ROTCAP_CHECK(it != model.groups.end(), "no group '" + group + "'");
+  DofCombination c;
+  c.nodes = it->second.nodes;
+  c.dof = dof;
+  c.weights.assign(c.nodes.size(), 1.0);
+  c.divisor = static_cast<double>(c.nodes.size());
+  return c;
 }
 
 }  // namespace rotcap

@@ -58,6 +58,18 @@ struct RigidTie {
   int reference_node = -1;
 };
 
+/// A linear combination of one DOF over nodes, value = (sum_i weights[i] u(nodes[i], dof)) / divisor:
+/// a hinge rotation (weights [1/mm] or [-], divisor 1) or a group mean (weights 1, divisor the node
+/// count). Used for curve columns and as the controlled quantity of displacement control.
+struct DofCombination {
+  std::vector<int> nodes;
+  Dof dof = Dof::uz;
+  std::vector<double> weights;  ///< one per node
+  double divisor = 1.0;         ///< != 0
+  /// Its value for a full displacement vector u (6 per node).
+  double value(const Eigen::VectorXd& u) const;
+};
+
 struct ShellModel {
   std::vector<Eigen::Vector3d> nodes;      ///< initial coordinates [mm]
   std::vector<ShellElement> elements;
@@ -85,5 +97,8 @@ Eigen::VectorXd load_vector(const ShellModel& model, const std::vector<GroupLoad
 /// element and every support or load names an existing group. Throws InputError (io/input_error.hpp
 /// is not visible here: throws std::invalid_argument with a message naming the item).
 void validate_topology(const ShellModel& model);
+
+/// The mean of dof over the nodes of a group (which must exist).
+DofCombination group_mean(const ShellModel& model, const std::string& group, Dof dof);
 
 }  // namespace rotcap

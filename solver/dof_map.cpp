@@ -65,4 +65,18 @@ Eigen::VectorXd DofMap::gather(const Eigen::VectorXd& x_full) const {
   return x;
 }
 
+Eigen::VectorXd free_dof_weights(const DofCombination& combination, const DofMap& dofs, int* held) {
+  Eigen::VectorXd c = Eigen::VectorXd::Zero(dofs.free_count());
+  int n_held = 0;
+  for (std::size_t i = 0; i < combination.nodes.size(); ++i) {
+    const int q = dofs.equation(combination.nodes[i], combination.dof);
+    if (q >= 0)
+      c[q] += combination.weights[i] / combination.divisor;
+    else
+      ++n_held;
+  }
+  if (held) *held = n_held;
+  return c;
+}
+
 }  // namespace rotcap

@@ -66,4 +66,8 @@ class DofMap {
   Eigen::VectorXd prescribed_;
 };
 
+/// The weights of a DOF combination over the free DOFs (weight / divisor per equation; held DOFs
+/// dropped and counted in *held when given): the constraint vector of displacement control.
+Eigen::VectorXd free_dof_weights(const DofCombination& combination, const DofMap& dofs, int* held = nullptr);
+
 }  // namespace rotcap

@@ -1,6 +1,7 @@
 #include "solver/section_assignment.hpp"
 
 #include "materials/elastic_shell_section.hpp"
+#include "materials/section_factory.hpp"
 
 #include <cmath>
 #include <map>
@@ -22,7 +23,22 @@ SectionAssignment SectionAssignment::elastic(const ShellModel& model, double E, 
   return out;
 }
 
-int SectionAssignment::add_section(std::unique_ptr<ShellSection> section) {
+SectionAssignment SectionAssignment::for_steel(const ShellModel& model, const SteelModel& steel,
+                                                const LayeredShellSection::Options& layers, bool elastic_only) {
+  if (elastic_only || !has_yield(steel)) return elastic(model, steel.E, steel.nu);
+  SectionAssignment out;
+  std::map<double, int> by_thickness;
+  for (int e = 0; e < model.element_count(); ++e) {
+    const double t = model.elements[e].thickness;
+    auto it = by_thickness.find(t);
+    if (it == by_thickness.end())
+      it = by_thickness.emplace(t, out.add_section(make_shell_section(steel, t, layers.layers))).first;
+    out.assign(e, it->second);
+  }
+  return out;
+}
+
+int SectionAssignment::add_section(std::shared_ptr<const ShellSection> section) {
   if (!section) throw std::invalid_argument("SectionAssignment::add_section: null section");
   sections_.push_back(std::move(section));
   return section_count() - 1;

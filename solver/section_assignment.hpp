@@ -7,9 +7,12 @@
 // several threads may use one section concurrently.
 //
 // Factories: elastic() builds ElasticShellSection (materials/elastic_shell_section.hpp) from E, nu
-// and each element's thickness. Later: layered plastic sections through add_section()/assign().
+// and each element's thickness; for_steel() the section a steel model calls for at each thickness
+// (materials/section_factory.hpp). Others through add_section()/assign().
 
+#include "materials/layered_shell_section.hpp"
 #include "materials/shell_section.hpp"
+#include "materials/steel_curve.hpp"
 #include "model/shell_model.hpp"
 
 #include <memory>
@@ -27,8 +30,14 @@ class SectionAssignment {
   /// (exact equality of the doubles). Throws std::invalid_argument on bad E, nu or thickness.
   static SectionAssignment elastic(const ShellModel& model, double E, double nu);
 
+  /// One section per distinct element thickness from make_shell_section(steel, t, layers): layered
+  /// J2 sections, or elastic ones for curve = "elastic" or elastic_only (linear and buckling
+  /// analyses use E and nu alone). Throws OptionError for an invalid steel model or layer count.
+  static SectionAssignment for_steel(const ShellModel& model, const SteelModel& steel,
+                                     const LayeredShellSection::Options& layers, bool elastic_only);
+
   /// Adds a section and returns its index.
-  int add_section(std::unique_ptr<ShellSection> section);
+  int add_section(std::shared_ptr<const ShellSection> section);
   /// Element e (0 <= e < element_count()) uses section s (0 <= s < section_count()); grows the
   /// element table as needed (unassigned elements get -1).
   void assign(int element, int section);
@@ -46,7 +55,7 @@ class SectionAssignment {
   void check(const ShellModel& model) const;
 
  private:
-  std::vector<std::unique_ptr<ShellSection>> sections_;
+  std::vector<std::shared_ptr<const ShellSection>> sections_;
   std::vector<int> index_;
 };
 

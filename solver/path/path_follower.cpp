@@ -1,31 +1,34 @@
 #include "solver/path/path_follower.hpp"
 
+#include "core/option_error.hpp"
+#include "core/text_format.hpp"
+
 #include <algorithm>
 #include <cmath>
-#include <sstream>
 
 namespace rotcap {
 
 namespace {
 const LoadControl kLandingControl;
 
-std::string bad(const char* key, double value, const char* constraint) {
-  std::ostringstream s;
-  s << "analysis." << key << " = " << value << ": expected " << constraint;
-  return s.str();
+[[noreturn]] void bad(const char* key, double value, const std::string& constraint) {
+  throw OptionError(std::string("analysis.") + key, format_number(value), std::string(key) + " " + constraint);
 }
 }  // namespace
 
-std::string PathOptions::validate() const {
-  if (!(force_tolerance > 0.0)) return bad("force_tolerance", force_tolerance, "> 0");
-  if (!(displacement_tolerance > 0.0)) return bad("displacement_tolerance", displacement_tolerance, "> 0");
-  if (max_iterations < 1) return bad("max_iterations", max_iterations, ">= 1");
-  if (!(first_step > 0.0)) return bad("first_step", first_step, "> 0");
-  if (!(min_step_ratio > 0.0 && min_step_ratio <= 1.0)) return bad("min_step_ratio", min_step_ratio, "in (0, 1]");
-  if (!(max_step_ratio >= 1.0)) return bad("max_step_ratio", max_step_ratio, ">= 1");
-  if (target_iterations < 1) return bad("target_iterations", target_iterations, ">= 1");
-  if (max_steps < 1) return bad("max_steps", max_steps, ">= 1");
-  return {};
+void PathOptions::validate() const {
+  if (!(force_tolerance > 0.0 && force_tolerance < 1.0))
+    bad("force_tolerance", force_tolerance, "in (0, 1) (relative to the reference load norm)");
+  if (!(displacement_tolerance > 0.0 && displacement_tolerance < 1.0))
+    bad("displacement_tolerance", displacement_tolerance, "in (0, 1) (relative to the step's increment norm)");
+  if (max_iterations < 1) bad("max_iterations", max_iterations, ">= 1");
+  if (!(first_step > 0.0)) bad("first_step", first_step, "> 0");
+  if (!(min_step_ratio > 0.0 && min_step_ratio <= 1.0)) bad("min_step_ratio", min_step_ratio, "in (0, 1]");
+  if (!(max_step_ratio >= 1.0)) bad("max_step_ratio", max_step_ratio, ">= 1");
+  if (target_iterations < 1 || target_iterations > max_iterations)
+    bad("target_iterations", target_iterations,
+        "in [1, max_iterations] (max_iterations = " + std::to_string(max_iterations) + ")");
+  if (max_steps < 1) bad("max_steps", max_steps, ">= 1");
 }
 
 const char* to_string(PathStatus status) {

@@ -35,8 +35,9 @@ struct PathOptions {
   int max_steps = 500;                      ///< >= 1 converged steps
   double max_load_factor = std::numeric_limits<double>::infinity();   ///< landed on exactly
   double max_control_value = std::numeric_limits<double>::quiet_NaN();///< displacement control: landed on
-  /// Empty if valid, else a message naming the option, its value and the constraint.
-  std::string validate() const;
+  /// Throws OptionError naming the option ("analysis.first_step", the case-file key), its value
+  /// and the rule. max_load_factor and max_control_value are set by the program, not checked here.
+  void validate() const;
 };
 
 enum class PathStatus {

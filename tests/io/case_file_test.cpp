@@ -38,33 +38,33 @@ TEST(CaseFile, ReadsEveryTableOfAGeneratedCase) {
   const CaseInput c = read_case_file(data_file("io_cantilever.toml"));
   EXPECT_EQ(c.kind, ModelKind::generated);
   EXPECT_EQ(c.title, "Car-park floor girder, hogging hinge over the interior column");
-  EXPECT_EQ(c.section.depth, 450.0);
-  EXPECT_EQ(c.section.flange_width, 190.0);
-  EXPECT_EQ(c.section.flange_thickness, 14.6);
-  EXPECT_EQ(c.section.web_thickness, 9.4);
+  EXPECT_EQ(c.zone.section.h, 450.0);
+  EXPECT_EQ(c.zone.section.b, 190.0);
+  EXPECT_EQ(c.zone.section.tf, 14.6);
+  EXPECT_EQ(c.zone.section.tw, 9.4);
   EXPECT_EQ(c.steel.E, 210000.0);
-  EXPECT_EQ(c.steel.fy.value(), 355.0);
-  EXPECT_EQ(c.steel.fu.value(), 490.0);
-  EXPECT_EQ(c.steel.curve, SteelCurve::quadlinear);
-  EXPECT_EQ(c.member.setup, Setup::cantilever);
-  EXPECT_EQ(c.member.length, 2000.0);
-  EXPECT_EQ(c.member.stiffeners, StiffenerLayout::supports_and_loads);
-  ASSERT_EQ(c.lateral_restraints.size(), 2u);
-  EXPECT_EQ(c.lateral_restraints[1].x, 1000.0);
-  EXPECT_EQ(c.lateral_restraints[1].flange, Flange::top);
+  EXPECT_EQ(c.steel.fy, 355.0);
+  EXPECT_EQ(c.steel.fu, 490.0);
+  EXPECT_EQ(c.steel.kind, SteelCurveKind::quadlinear);
+  EXPECT_EQ(c.zone.setup, HingeSetup::cantilever);
+  EXPECT_EQ(c.zone.length, 2000.0);
+  EXPECT_EQ(c.zone.stiffeners, StiffenerPlacement::supports_and_loads);
+  ASSERT_EQ(c.zone.lateral_restraints.size(), 2u);
+  EXPECT_EQ(c.zone.lateral_restraints[1].x, 1000.0);
+  EXPECT_EQ(c.zone.lateral_restraints[1].flange, RestrainedFlange::top);
   EXPECT_EQ(c.imperfection.local, LocalImperfection::buckling_mode);
   EXPECT_EQ(c.imperfection.local_amplitude.base, "b");
   EXPECT_EQ(c.imperfection.local_amplitude.divisor, 200.0);
   EXPECT_EQ(c.imperfection.global_amplitude.base, "L");
   EXPECT_EQ(c.imperfection.global_amplitude.divisor, 1000.0);
-  EXPECT_EQ(c.residual_stress, ResidualPattern::hot_rolled);
-  EXPECT_EQ(c.mesh.flange_elements, 8);
-  EXPECT_EQ(c.mesh.web_elements, 10);
-  EXPECT_EQ(c.mesh.layers, 5);
+  EXPECT_EQ(c.residual_stress, ResidualStressKind::hot_rolled);
+  EXPECT_EQ(c.zone.flange_elements, 8);
+  EXPECT_EQ(c.zone.web_elements, 10);
+  EXPECT_EQ(c.layers.layers, 5);
   EXPECT_EQ(c.analysis.control, Control::arc_length);
   EXPECT_EQ(c.analysis.max_rotation, 0.15);
   EXPECT_EQ(c.analysis.stop_below, 0.75);
-  EXPECT_EQ(c.analysis.max_steps, 500);
+  EXPECT_EQ(c.analysis.path.max_steps, 500);
   EXPECT_EQ(c.buckling.modes, 6);
   EXPECT_EQ(c.output.fields_every, 5);
 }
@@ -74,26 +74,26 @@ TEST(CaseFile, FillsTheDocumentedDefaultsOfAMinimalGeneratedCase) {
   EXPECT_EQ(c.title, "");
   EXPECT_EQ(c.steel.E, 210000.0);
   EXPECT_EQ(c.steel.nu, 0.3);
-  EXPECT_EQ(c.steel.curve, SteelCurve::quadlinear);
-  EXPECT_EQ(c.member.axial_load_ratio, 0.0);
-  EXPECT_TRUE(c.lateral_restraints.empty());
+  EXPECT_EQ(c.steel.kind, SteelCurveKind::quadlinear);
+  EXPECT_EQ(c.zone.axial_load_ratio, 0.0);
+  EXPECT_TRUE(c.zone.lateral_restraints.empty());
   EXPECT_EQ(c.imperfection.local, LocalImperfection::buckling_mode);
   EXPECT_EQ(c.imperfection.local_amplitude.text, "b/200");
   EXPECT_EQ(c.imperfection.global_amplitude.text, "L/1000");
-  EXPECT_EQ(c.residual_stress, ResidualPattern::none);
-  EXPECT_EQ(c.mesh.flange_elements, 18);  // the demo mesh study's converged level (io/case_input.hpp)
-  EXPECT_EQ(c.mesh.web_elements, 23);
-  EXPECT_EQ(c.mesh.layers, 5);
+  EXPECT_EQ(c.residual_stress, ResidualStressKind::none);
+  EXPECT_EQ(c.zone.flange_elements, 18);  // the demo mesh study's converged level (io/case_input.hpp)
+  EXPECT_EQ(c.zone.web_elements, 23);
+  EXPECT_EQ(c.layers.layers, 5);
   const AnalysisInput& a = c.analysis;
   EXPECT_EQ(a.control, Control::arc_length);
-  EXPECT_EQ(a.force_tolerance, 1e-6);
-  EXPECT_EQ(a.displacement_tolerance, 1e-4);
-  EXPECT_EQ(a.max_iterations, 20);
-  EXPECT_EQ(a.first_step, 0.05);     // generated models: constant steps (io/case_file.hpp)
-  EXPECT_EQ(a.min_step_ratio, 1e-4);
-  EXPECT_EQ(a.target_iterations, 6);
-  EXPECT_EQ(a.max_step_ratio, 1.0);
-  EXPECT_EQ(a.arc_length_form, ArcLengthForm::cylindrical);
+  EXPECT_EQ(a.path.force_tolerance, 1e-6);
+  EXPECT_EQ(a.path.displacement_tolerance, 1e-4);
+  EXPECT_EQ(a.path.max_iterations, 20);
+  EXPECT_EQ(a.path.first_step, 0.05);     // generated models: constant steps (io/case_file.hpp)
+  EXPECT_EQ(a.path.min_step_ratio, 1e-4);
+  EXPECT_EQ(a.path.target_iterations, 6);
+  EXPECT_EQ(a.path.max_step_ratio, 1.0);
+  EXPECT_EQ(a.arc_length_form, ArcLength::Form::Cylindrical);
   EXPECT_FALSE(a.max_load_factor.has_value());
   EXPECT_EQ(c.buckling.modes, 4);
   EXPECT_EQ(c.output.fields_every, 5);
@@ -136,7 +136,7 @@ TEST(CaseFile, ResolvesTheMeshAgainstTheCaseFilesFolder) {
   ASSERT_EQ(c.thickness.size(), 2u);
   EXPECT_EQ(c.thickness[1].group, "thick");
   EXPECT_EQ(c.thickness[1].value, 10.0);
-  EXPECT_EQ(c.mesh.layers, 7);
+  EXPECT_EQ(c.layers.layers, 7);
   EXPECT_EQ(c.analysis.control, Control::arc_length);
   EXPECT_EQ(c.analysis.max_load_factor.value(), 2.0);
 }
@@ -150,10 +150,10 @@ TEST(CaseFile, ReadsATrueStressTableAndStiffenerPositions) {
   ASSERT_EQ(c.steel.table.size(), 3u);
   EXPECT_EQ(c.steel.table[2][0], 480.0);
   EXPECT_EQ(c.steel.table[2][1], 0.10);
-  EXPECT_EQ(c.member.stiffeners, StiffenerLayout::positions);
-  ASSERT_EQ(c.member.stiffener_positions.size(), 3u);
-  EXPECT_EQ(c.member.stiffener_positions[1], 750.0);
-  EXPECT_EQ(c.member.stiffener_thickness.value(), 12.0);
+  EXPECT_EQ(c.zone.stiffeners, StiffenerPlacement::positions);
+  ASSERT_EQ(c.zone.stiffener_positions.size(), 3u);
+  EXPECT_EQ(c.zone.stiffener_positions[1], 750.0);
+  EXPECT_EQ(c.zone.stiffener_thickness.value(), 12.0);
 }
 
 TEST(CaseFile, TakesTheDimensionsOfADesignationFromTheSectionTable) {
@@ -162,12 +162,12 @@ TEST(CaseFile, TakesTheDimensionsOfADesignationFromTheSectionTable) {
                "designation = \"ipe450\"\n");
   const CaseInput c = parse_case_text(text, "ipe.toml");
   // IPE 450 of EN 10365 (Euronorm 19-57): h 450, b 190, tw 9.4, tf 14.6, r 21 mm.
-  EXPECT_EQ(c.section.designation, "IPE 450");
-  EXPECT_EQ(c.section.depth, 450.0);
-  EXPECT_EQ(c.section.flange_width, 190.0);
-  EXPECT_EQ(c.section.web_thickness, 9.4);
-  EXPECT_EQ(c.section.flange_thickness, 14.6);
-  EXPECT_EQ(c.section.root_radius, 21.0);
+  EXPECT_EQ(c.zone.section.designation, "IPE 450");
+  EXPECT_EQ(c.zone.section.h, 450.0);
+  EXPECT_EQ(c.zone.section.b, 190.0);
+  EXPECT_EQ(c.zone.section.tw, 9.4);
+  EXPECT_EQ(c.zone.section.tf, 14.6);
+  EXPECT_EQ(c.zone.section.r, 21.0);
   EXPECT_EQ(to_json(c)["section"]["designation"], "IPE 450");
   EXPECT_TRUE(to_json(parse_case_text(kMinimalGenerated, "p.toml"))["section"]["designation"].is_null());
 }

@@ -233,10 +233,10 @@ TEST(InputErrors, OtherCaseFileRulesNameTheirKeys) {
   expect_input_error([] { generated(replaced(kGenerated, "\"cantilever\"", "\"four_point\"")); },
                      {"member.load_spacing: found no value; expected the distance between the two loads"});
   expect_input_error([] { generated(replaced(kGenerated, "length = 1500", "length = 1500\naxial_load_ratio = 1.0")); },
-                     {"beam.toml:12: member.axial_load_ratio: found 1; expected 0 <= axial_load_ratio < 1"});
+                     {"beam.toml:12: member.axial_load_ratio: found 1; expected 0 <= N/Npl < 1"});
   expect_input_error([] { generated(replaced(kGenerated, "\"cantilever\"\nlength = 1500",
                                              "\"three_point\"\nlength = 1500\naxial_load_ratio = 0.3")); },
-                     {"member.axial_load_ratio: found 0.3; expected 0 for setup = \"three_point\""});
+                     {"member.axial_load_ratio: found 0.3; expected 0: an axial load applies to setup = \"cantilever\" or \"uniform_moment\" only"});
   expect_input_error([] { generated(replaced(kGenerated, "fy = 355", "nu = 0.5\nfy = 355")); },
                      {"steel.nu: found 0.5; expected 0 <= nu < 0.5"});
   expect_input_error([] { general(replaced(general_text(), "\"uz\"]", "\"uzz\"]")); },

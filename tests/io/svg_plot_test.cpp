@@ -3,6 +3,7 @@
 // Tick values are worked out by hand from Heckbert's rules (Graphics Gems, 1990) in the comments.
 #include "io/input_error.hpp"
 #include "io/svg_plot.hpp"
+#include "io/xml_text.hpp"
 #include "tests/io/io_test_support.hpp"
 #include "tests/test_support.hpp"
 

@@ -1,10 +1,12 @@
 // Steel models -> hardening curves: Yun & Gardner (2017) quad-linear constants, the
 // engineering-to-true conversion (Arasaratnam, Sivakumaran & Tait 2011) and input validation.
+#include "core/option_error.hpp"
 #include "materials/steel_curve.hpp"
 
 #include "tests/test_support.hpp"
 
 #include <cmath>
+#include <limits>
 #include <cstdio>
 #include <stdexcept>
 #include <string>
@@ -20,15 +22,6 @@ SteelModel s355(SteelCurveKind kind) {
   s.fu = 490.0;
   s.kind = kind;
   return s;
-}
-
-std::string validation_message(const SteelModel& s) {
-  try {
-    validate(s);
-  } catch (const std::invalid_argument& e) {
-    return e.what();
-  }
-  return "";
 }
 
 TEST(YunGardnerQuadlinear, S355ValuesMatchReferenceDerivation) {
@@ -176,50 +169,64 @@ TEST(SteelCurve, ElasticKindHasNoHardeningCurve) {
   }
 }
 
+/// The OptionError of validate(s), or a failure when it passes or throws something else.
+OptionError validation_error(const SteelModel& s) {
+  try {
+    validate(s);
+  } catch (const OptionError& e) {
+    return e;
+  }
+  ADD_FAILURE() << "validate() accepted the model or threw another type";
+  return OptionError("", "", "");
+}
+
 TEST(SteelCurve, ValidationNamesKeyValueAndConstraint) {
   SteelModel s = s355(SteelCurveKind::quadlinear);
   s.fu = 300.0;
-  std::string m = validation_message(s);
-  EXPECT_NE(m.find("steel.fu = 300"), std::string::npos) << m;
-  EXPECT_NE(m.find("steel.fy = 355"), std::string::npos) << m;
+  OptionError e = validation_error(s);
+  EXPECT_EQ(e.key(), "steel.fu");
+  EXPECT_EQ(e.found(), "300");
+  EXPECT_NE(e.expected().find("fu >= fy (355)"), std::string::npos) << e.what();
 
   s = s355(SteelCurveKind::bilinear);
   s.hardening_modulus = -10.0;
-  m = validation_message(s);
-  EXPECT_NE(m.find("steel.hardening_modulus = -10"), std::string::npos) << m;
+  e = validation_error(s);
+  EXPECT_EQ(e.key(), "steel.hardening_modulus");
+  EXPECT_EQ(e.found(), "-10");
 
   s.hardening_modulus = 21.0;  // E/10000 would reach fu only at engineering strain ~6.4
-  m = validation_message(s);
-  EXPECT_NE(m.find("engineering strain"), std::string::npos) << m;
+  e = validation_error(s);
+  EXPECT_EQ(e.key(), "steel.hardening_modulus");
+  EXPECT_NE(e.expected().find("engineering strain"), std::string::npos) << e.what();
 
   s = s355(SteelCurveKind::bilinear);
   s.hardening_modulus = 2100.0;
   s.fu = 355.0;
-  EXPECT_NE(validation_message(s).find("must be >"), std::string::npos);
+  e = validation_error(s);
+  EXPECT_EQ(e.key(), "steel.fu");
+  EXPECT_NE(e.expected().find("fu > fy"), std::string::npos) << e.what();
 
   s = s355(SteelCurveKind::elastic_plastic);
   s.E = -1.0;
-  EXPECT_NE(validation_message(s).find("steel.E = -1"), std::string::npos);
+  EXPECT_EQ(validation_error(s).key(), "steel.E");
   s = s355(SteelCurveKind::elastic_plastic);
   s.nu = 0.5;
-  EXPECT_NE(validation_message(s).find("steel.nu = 0.5"), std::string::npos);
+  EXPECT_EQ(validation_error(s).key(), "steel.nu");
+  s.nu = -0.1;  // admissible for an isotropic solid, not for a steel
+  EXPECT_EQ(validation_error(s).key(), "steel.nu");
   s = s355(SteelCurveKind::elastic_plastic);
   s.fy = 0.0;
-  EXPECT_NE(validation_message(s).find("steel.fy = 0"), std::string::npos);
+  e = validation_error(s);
+  EXPECT_EQ(e.key(), "steel.fy");
+  EXPECT_EQ(e.found(), "0");
   s = s355(SteelCurveKind::table);
-  EXPECT_NE(validation_message(s).find("steel.table"), std::string::npos);
+  EXPECT_EQ(validation_error(s).key(), "steel.table");
 }
 
-TEST(SteelCurve, KindNamesRoundTrip) {
-  for (SteelCurveKind k : {SteelCurveKind::elastic, SteelCurveKind::elastic_plastic,
-                           SteelCurveKind::bilinear, SteelCurveKind::quadlinear,
-                           SteelCurveKind::table}) {
-    SteelCurveKind parsed = SteelCurveKind::elastic;
-    ASSERT_TRUE(parse_steel_curve_kind(steel_curve_kind_name(k), parsed));
-    EXPECT_EQ(parsed, k);
-  }
-  SteelCurveKind unused;
-  EXPECT_FALSE(parse_steel_curve_kind("trilinear", unused));
+TEST(SteelCurve, OneYieldStrengthCheck) {
+  EXPECT_NO_THROW(require_yield_strength(355.0));
+  for (double fy : {0.0, -1.0, std::numeric_limits<double>::infinity(), std::numeric_limits<double>::quiet_NaN()})
+    EXPECT_THROW(require_yield_strength(fy), OptionError) << fy;
 }
 
 }  // namespace

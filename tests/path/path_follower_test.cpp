@@ -1,4 +1,5 @@
 // Path-following drivers on small problems with known equilibrium paths.
+#include "core/option_error.hpp"
 #include "solver/path/path_follower.hpp"
 #include "tests/path/dense_problem.hpp"
 #include "tests/test_support.hpp"
@@ -194,8 +195,17 @@ TEST(PathFollower, LoadBeyondCapacityStopsWithConvergedStepsKept) {
 TEST(PathOptions, ValidateNamesTheBrokenOption) {
   PathOptions o;
   o.min_step_ratio = 0.0;
-  EXPECT_NE(o.validate().find("min_step_ratio"), std::string::npos);
-  EXPECT_TRUE(PathOptions{}.validate().empty());
+  try {
+    o.validate();
+    ADD_FAILURE() << "min_step_ratio = 0 accepted";
+  } catch (const OptionError& e) {
+    EXPECT_EQ(e.key(), "analysis.min_step_ratio");
+    EXPECT_EQ(e.found(), "0");
+  }
+  EXPECT_NO_THROW(PathOptions{}.validate());
+  o = PathOptions{};
+  o.target_iterations = o.max_iterations + 1;
+  EXPECT_THROW(o.validate(), OptionError);
 }
 
 }  // namespace

@@ -187,6 +187,8 @@ TEST(HalfSine, RejectsElementsLongerThanHalfAHalfWave) {
   HingeZoneSpec s;
   s.section = *find_section("IPE 300");
   s.length = kL;
+  s.flange_elements = 8;
+  s.web_elements = 10;
   s.aspect = 3.0;  // h_e = 56.25 mm > lambda / 2 = 37.5 mm
   const HingeZoneModel h = build_hinge_zone(s);
   HalfSineOptions o;

@@ -21,6 +21,8 @@ inline HingeZoneModel ipe300(HingeSetup setup, double length, std::vector<double
   s.section = *find_section("IPE 300");
   s.setup = setup;
   s.length = length;
+  s.flange_elements = 8;
+  s.web_elements = 10;
   if (setup == HingeSetup::four_point) s.load_spacing = 0.4 * length;
   s.stiffener_positions = std::move(stiffeners);
   return build_hinge_zone(s);

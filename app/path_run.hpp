@@ -1,0 +1,57 @@
+#pragma once
+// run_path: one path-following run of a ShellProblem from its committed state, shared by the
+// hinge-zone study and general models. It builds the step constraint of the [analysis] control
+// (load, displacement of a DOF combination, or arc length), and after every converged step adds the
+// caller's curve row, logs the caller's progress line, writes the VTK fields when due and asks the
+// caller whether to stop; the last step's fields are written whatever the outcome.
+#include "app/run_recorder.hpp"
+#include "io/case_input.hpp"
+#include "solver/nonlinear/shell_problem.hpp"
+#include "solver/path/path_follower.hpp"
+
+#include <Eigen/Core>
+
+#include <functional>
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace rotcap::app {
+
+struct PathRunSetup {
+  Control control = Control::arc_length;  ///< load, displacement or arc_length
+  PathOptions options;                    ///< with max_load_factor / max_control_value set
+  ArcLength::Form arc_length_form = ArcLength::Form::Cylindrical;
+  std::optional<DofCombination> controlled;  ///< control = displacement: the quantity driven
+  /// stop_reason of a path that landed on max_load_factor or max_control_value (empty: "completed").
+  std::string landed_reason;
+  std::string description;  ///< "tracing the moment-rotation curve", logged with the control
+};
+
+/// What the caller makes of one converged step (u: the full displacement vector).
+struct StepRecord {
+  std::vector<double> row;                 ///< the curve.csv row
+  std::string progress;                    ///< the progress line
+  std::optional<std::string> stop_reason;  ///< set: stop after this step for this reason
+};
+using StepHandler = std::function<StepRecord(const ConvergedStep&, const Eigen::VectorXd& u)>;
+
+struct PathRunResult {
+  PathSummary path;
+  std::string stop_reason;  ///< the caller's, the path status's, landed_reason or "completed"
+  int last_step = 0;        ///< 0 when no step converged
+};
+
+/// Throws InputError (through the caller's file) never; a held controlled DOF is the caller's to check.
+PathRunResult run_path(ShellProblem& problem, const ShellModel& model, RunRecorder& recorder,
+                       const PathRunSetup& setup, const StepHandler& on_step);
+
+/// The element results of the problem's committed state, for the VTK fields.
+ElementResults snapshot_results(const ShellProblem& problem);
+/// summary.json's "solver" object of a finished path.
+nlohmann::json solver_summary(const PathSummary& path, const ShellProblem& problem, const ShellModel& model,
+                              double wall_seconds);
+/// Logs the closing line of a path and returns the exit code it calls for (3 when it stopped early).
+int finish_path(const PathSummary& path, const std::string& stop_reason, double wall_seconds);
+
+}  // namespace rotcap::app
