@@ -6,10 +6,10 @@
 #include "io/input_error.hpp"
 #include "io/report_html.hpp"
 #include "io/svg_plot.hpp"
-#include "model/fitted_hinge_law.hpp"
-#include "model/hinge_laws.hpp"
-#include "model/moment_curvature.hpp"
-#include "model/residual_stress.hpp"
+#include "model/laws/fitted_hinge_law.hpp"
+#include "model/laws/hinge_laws.hpp"
+#include "model/laws/moment_curvature.hpp"
+#include "model/patterns/residual_stress.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -1,6 +1,6 @@
 #pragma once
-// The simple hinge laws beside a finished hinge-zone run (model/hinge_laws.hpp,
-// model/moment_curvature.hpp, model/fitted_hinge_law.hpp) and the outputs they feed:
+// The simple hinge laws beside a finished hinge-zone run (model/laws/hinge_laws.hpp,
+// model/laws/moment_curvature.hpp, model/laws/fitted_hinge_law.hpp) and the outputs they feed:
 //  - curve.svg: the shell curve (M/Mp against theta/theta_p) with the laws (a) elastic-perfectly
 //    plastic, (b) linear strain-hardening hinge, (c) moment-curvature integration, and the fitted
 //    multilinear law overlaid and labelled; the law curves are drawn up to 1.1 x the shell's last
@@ -23,7 +23,7 @@
 // curve.csv, the mesh from final_state.json and the summary from summary.json.
 #include "app/hinge_case.hpp"
 #include "app/hinge_stages.hpp"
-#include "model/hinge_curve.hpp"
+#include "model/hinge/hinge_curve.hpp"
 
 #include <array>
 #include <filesystem>

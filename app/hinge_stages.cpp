@@ -6,10 +6,10 @@
 #include "app/sections.hpp"
 #include "elements/shell_q4.hpp"
 #include "io/svg_plot.hpp"
-#include "model/hinge_curve.hpp"
-#include "model/imperfection.hpp"
-#include "model/residual_stress.hpp"
-#include "model/section_deformation.hpp"
+#include "model/hinge/hinge_curve.hpp"
+#include "model/patterns/imperfection.hpp"
+#include "model/patterns/residual_stress.hpp"
+#include "model/patterns/section_deformation.hpp"
 #include "solver/linear_buckling.hpp"
 
 #include <algorithm>
@@ -115,7 +115,7 @@ StageReport apply_residual_stresses(const CaseInput& input, const HingeCase& hin
   report.json["relative_imbalance"] = eq.relative_imbalance;
   // Local stresses at the Gauss points of the perfect geometry (the pattern is a property of the
   // section, not of the imperfect coordinates), constant through the thickness, each the mean over
-  // its quadrant of the element (model/residual_stress.hpp).
+  // its quadrant of the element (model/patterns/residual_stress.hpp).
   const ShellModel& perfect = hinge.zone.model;
   std::vector<std::array<Eigen::Vector3d, 4>> at_gp(model.elements.size());
   for (int e = 0; e < model.element_count(); ++e) {

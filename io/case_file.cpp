@@ -3,8 +3,8 @@
 #include "io/amplitude.hpp"
 #include "io/case_file_parts.hpp"
 #include "io/input_text.hpp"
-#include "model/i_section.hpp"
-#include "model/section_table.hpp"
+#include "model/section/i_section.hpp"
+#include "model/section/section_table.hpp"
 
 #include <fstream>
 #include <stdexcept>
@@ -35,7 +35,7 @@ namespace {
 using detail::read_choice;
 using detail::TableReader;
 
-/// model/i_section.hpp validate() reports "section.key = value mm: expected bound"; that becomes
+/// model/section/i_section.hpp validate() reports "section.key = value mm: expected bound"; that becomes
 /// an InputError at the key's line (the whole text as found when the form differs).
 [[noreturn]] void rethrow_section_error(const TableReader& r, const std::string& message) {
   const std::size_t eq = message.find(" = "), colon = message.find(": expected ");

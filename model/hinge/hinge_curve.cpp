@@ -1,4 +1,4 @@
-#include "model/hinge_curve.hpp"
+#include "model/hinge/hinge_curve.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -1,6 +1,6 @@
 #pragma once
 // Longitudinal residual stress patterns of doubly symmetric I-sections on the centre-line plate
-// model (model/i_section.hpp): flanges of width b at z = +-zf, zf = (h - tf)/2, a web of depth
+// model (model/section/i_section.hpp): flanges of width b at z = +-zf, zf = (h - tf)/2, a web of depth
 // h - tf = 2 zf between the flange mid-planes (mechanics.md, "Material": residual stresses enter
 // as initial stresses at every layer point).
 //
@@ -43,7 +43,7 @@
 //   not required to vanish). Evaluated exactly: the patterns are piecewise quadratic and each
 //   piece is integrated in closed form.
 
-#include "model/i_section.hpp"
+#include "model/section/i_section.hpp"
 #include "model/shell_model.hpp"
 
 #include <Eigen/Core>
@@ -58,7 +58,7 @@ namespace rotcap {
 /// Same order as the case file's [residual_stress] pattern values.
 enum class ResidualStressKind { none, hot_rolled, welded };
 
-/// Plates of the hinge-zone model (ShellModel::region_names of model/hinge_zone_mesher.hpp).
+/// Plates of the hinge-zone model (ShellModel::region_names of model/hinge_zone/hinge_zone_mesher.hpp).
 enum class PlateRegion { top_flange, bottom_flange, web, stiffener };
 
 /// "top_flange", "bottom_flange", "web", "stiffener" -> the region; anything else -> nullopt.

@@ -2,7 +2,7 @@
 // Moment-curvature of a doubly symmetric I-section by fibre integration (major-axis bending), the
 // "simple" section law that the shell result is compared with (no local buckling by construction).
 //
-// Section: the centre-line PLATE MODEL that rotcap meshes (model/i_section.hpp), not the real
+// Section: the centre-line PLATE MODEL that rotcap meshes (model/section/i_section.hpp), not the real
 // section with fillets: flanges of width b and thickness tf centred on z = +-zf, zf = (h - tf)/2,
 // and a web of thickness tw over [-zf, zf] (it overlaps each flange by tf/2, as in the plate
 // model's Wpl_y = b tf (h - tf) + tw (h - tf)^2 / 4). So M tends to fy Wpl_y of the plate model,
@@ -12,7 +12,7 @@
 // `flange_strips_thickness` through tf; web: `web_strips` over its depth); each strip is
 // integrated with two Gauss points in z (so sum A z^2 = Iy and sum A |z| = Wpl_y / 2 are exact
 // for a strip that does not cross z = 0; strip counts are even so none does). Residual stress
-// (model/residual_stress.hpp, longitudinal) is sampled at the strip centre and held constant over
+// (model/patterns/residual_stress.hpp, longitudinal) is sampled at the strip centre and held constant over
 // the strip.
 //
 // Fibre law: uniaxial stress-strain curve of the SAME material as the shell's layers. The shell's
@@ -36,8 +36,8 @@
 // Units: mm, N, MPa; kappa [1/mm], M [N mm].
 
 #include "materials/hardening_curve.hpp"
-#include "model/i_section.hpp"
-#include "model/residual_stress.hpp"
+#include "model/section/i_section.hpp"
+#include "model/patterns/residual_stress.hpp"
 
 #include <array>
 #include <span>

@@ -1,4 +1,4 @@
-#include "model/i_section.hpp"
+#include "model/section/i_section.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -1,4 +1,4 @@
-#include "model/moment_curvature.hpp"
+#include "model/laws/moment_curvature.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -3,7 +3,7 @@
 // commit 38bc16a3d9d38e592a237b2e000a4a032071c78a (SCI/ArcelorMittal table format; EN 10365).
 // Columns: designation, h, b, tw, tf, r [mm];  A [cm^2], Iy [cm^4], Iz [cm^4], Wpl,y [cm^3],
 // It [cm^4], Iw [dm^6] as printed in the data set.
-#include "model/section_table.hpp"
+#include "model/section/section_table.hpp"
 
 #include <array>
 

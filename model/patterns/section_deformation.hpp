@@ -2,11 +2,11 @@
 // Deformation shape of a hinge-zone model: how much of a displacement field is rigid motion of
 // the cross-sections and how much is out-of-plane distortion of the flanges and the web, station
 // by station, and a label for it (flange or web local buckling, lateral-torsional, none). Used to
-// pick a local buckling mode as an imperfection (model/imperfection.hpp) and to name the failure
+// pick a local buckling mode as an imperfection (model/patterns/imperfection.hpp) and to name the failure
 // mode of a run from the displacement increment between the peak and the end.
 //
 // Input: a full displacement vector, 6 entries per node in the order of Dof (ux .. rz) [mm, rad];
-// only the translations are used. Geometry as in model/hinge_zone_mesher.hpp: x along the member,
+// only the translations are used. Geometry as in model/hinge_zone/hinge_zone_mesher.hpp: x along the member,
 // web in the x-z plane at y = 0, flanges at z = +-zf. Plates are recognised by their elements'
 // region names ("top_flange", "bottom_flange", "web"); stiffener-only and reference nodes (used by
 // no element) are ignored. Nodes belong to the station (node line) whose x they lie on.
@@ -42,7 +42,7 @@
 //     lateral-torsional motion, since local buckling drags some twist with it) and D >= the none
 //     threshold; otherwise lateral_torsional.
 
-#include "model/hinge_zone_mesher.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
 
 #include <Eigen/Core>
 #include <string>

@@ -1,4 +1,4 @@
-#include "model/hinge_laws.hpp"
+#include "model/laws/hinge_laws.hpp"
 
 #include <algorithm>
 #include <cmath>

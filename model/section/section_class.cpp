@@ -1,4 +1,4 @@
-#include "model/section_class.hpp"
+#include "model/section/section_class.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -1,7 +1,7 @@
 #pragma once
 // Simple hinge laws, drawn beside the shell model's moment-rotation curve. Rotations follow the
 // same definitions as the shell run (interface.md, "Definitions the numbers follow";
-// model/hinge_zone_mesher.hpp HingeRotation). Units: N mm, mm, rad.
+// model/hinge_zone/hinge_zone_mesher.hpp HingeRotation). Units: N mm, mm, rad.
 //
 // (a) Elastic-perfectly plastic at Mp: theta = M / k_el up to Mp, then M = Mp.
 //
@@ -30,7 +30,7 @@
 //     reported as not defined, with that reason, and no number is invented.
 //     A steel without strain hardening (E_t = 0): K_sh = 0, law (b) equals law (a).
 //
-// (c) Moment-curvature integration (model/moment_curvature.hpp) along the statically
+// (c) Moment-curvature integration (model/laws/moment_curvature.hpp) along the statically
 //     determinate member: M(x) from statics, kappa(M(x)) by inverting M(kappa), the rotation by
 //     virtual work with the unit moment diagram of the rotation definition:
 //       theta(M0) = c1 / M0^2 int_0^M0 kappa(m) m dm + c2 kappa(M0),
@@ -41,9 +41,9 @@
 //     theory of beam_theory_rotation_at_mp. Shear deformation and local buckling are absent by
 //     construction. The curve stops at the last point of M(kappa) (the ultimate strain).
 
-#include "model/hinge_curve.hpp"
-#include "model/hinge_zone_mesher.hpp"
-#include "model/moment_curvature.hpp"
+#include "model/hinge/hinge_curve.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
+#include "model/laws/moment_curvature.hpp"
 
 #include <string>
 #include <vector>

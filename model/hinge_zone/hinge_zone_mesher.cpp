@@ -1,4 +1,4 @@
-#include "model/hinge_zone_mesher.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -1,4 +1,4 @@
-#include "model/imperfection.hpp"
+#include "model/patterns/imperfection.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -19,7 +19,7 @@
 // n = 0 gives the pure-bending limits 72, 83, 124 eps; n = 1 the pure-compression ones 33, 38, 42.
 // A part whose c/t exceeds its Class-3 limit is Class 4; the section's class is the worse part's.
 
-#include "model/i_section.hpp"
+#include "model/section/i_section.hpp"
 
 #include <array>
 

@@ -1,4 +1,4 @@
-#include "model/section_table.hpp"
+#include "model/section/section_table.hpp"
 
 #include <cctype>
 #include <cstring>

@@ -1,4 +1,4 @@
-#include "model/fitted_hinge_law.hpp"
+#include "model/laws/fitted_hinge_law.hpp"
 
 #include <algorithm>
 #include <cmath>

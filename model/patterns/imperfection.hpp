@@ -1,5 +1,5 @@
 #pragma once
-// Geometric imperfections of a hinge-zone model (model/hinge_zone_mesher.hpp) as node offsets
+// Geometric imperfections of a hinge-zone model (model/hinge_zone/hinge_zone_mesher.hpp) as node offsets
 // [mm] to add to the model's coordinates (mechanics.md, "Linear buckling and imperfections").
 // Every function returns one offset per node (size node_count()), computed from the coordinates
 // the model has when it is called: compute all offsets from the perfect model, then add them
@@ -43,11 +43,11 @@
 // Buckling-mode local imperfection: the first mode (in the order given, lowest load factor first)
 // that section_deformation classifies as flange or web local buckling, scaled so that its largest
 // out-of-plane plate distortion (relative to the section's rigid motion at that station, as
-// defined in model/section_deformation.hpp) equals the amplitude. Each mode is classified after
+// defined in model/patterns/section_deformation.hpp) equals the amplitude. Each mode is classified after
 // normalising its largest nodal translation to h, so the none threshold (none_ratio h) is relative.
 
-#include "model/hinge_zone_mesher.hpp"
-#include "model/section_deformation.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
+#include "model/patterns/section_deformation.hpp"
 
 #include <Eigen/Core>
 #include <optional>

@@ -12,7 +12,7 @@
 // Designations: "IPE 300", "HEA 300", "HEB 300" (canonical); lookups ignore case, spaces,
 // hyphens and underscores and accept the EN 10365 order "HE 300 A" / "HE 300 B".
 
-#include "model/i_section.hpp"
+#include "model/section/i_section.hpp"
 
 #include <optional>
 #include <span>

@@ -24,7 +24,7 @@
 // first of them.
 // Labels: "elastic_limit", "hardening" (before the peak), "peak", "softening" (after), "end".
 
-#include "model/hinge_curve.hpp"
+#include "model/hinge/hinge_curve.hpp"
 
 #include <span>
 #include <string>

@@ -1,4 +1,4 @@
-#include "model/section_deformation.hpp"
+#include "model/patterns/section_deformation.hpp"
 
 #include <Eigen/LU>
 #include <algorithm>

@@ -1,4 +1,4 @@
-#include "model/residual_stress.hpp"
+#include "model/patterns/residual_stress.hpp"
 
 #include <algorithm>
 #include <cmath>

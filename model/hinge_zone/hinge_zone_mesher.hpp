@@ -3,7 +3,7 @@
 // interface.md, "Supports and loading of the generated setups").
 //
 // Geometry (mm): x along the member (0 <= x <= L), z vertical (up), y lateral; the web lies in
-// the x-z plane at y = 0. Plates on their centre lines (model/i_section.hpp, plate model):
+// the x-z plane at y = 0. Plates on their centre lines (model/section/i_section.hpp, plate model):
 //   top / bottom flange  z = +-(h - tf)/2, width b, thickness tf, flange_elements across
 //                        (y_k = -b/2 + k b/flange_elements; k = flange_elements/2 is y = 0);
 //   web                  y = 0, from flange to flange, thickness tw, web_elements over h - tf;
@@ -73,7 +73,7 @@
 //                   load points, which bound the constant-moment zone;
 //   uniform_moment  theta = ry("end_a") - ry("end_b"), the relative rotation of the end sections.
 
-#include "model/i_section.hpp"
+#include "model/section/i_section.hpp"
 #include "model/shell_model.hpp"
 
 #include <optional>
