@@ -1,10 +1,13 @@
 #include "model/laws/hinge_laws.hpp"
 
+#include "model/setups/loading_setup.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <limits>
 #include <stdexcept>
+#include <utility>
 
 namespace rotcap {
 
@@ -20,17 +23,7 @@ std::string num(double v) {
 
 RotationIntegral rotation_integral(HingeSetup setup, double L, double a) {
   if (!(L > 0.0)) throw std::invalid_argument("member length " + num(L) + " mm: expected > 0");
-  switch (setup) {
-    case HingeSetup::cantilever:
-    case HingeSetup::three_point:
-      return {L, 0.0};
-    case HingeSetup::four_point:
-      if (!(a > 0.0) || a > 0.5 * L) throw std::invalid_argument("shear span " + num(a) + " mm: expected 0 < a <= L/2");
-      return {2.0 * a, L - 2.0 * a};
-    case HingeSetup::uniform_moment:
-      return {0.0, L};
-  }
-  return {};
+  return loading_setup(setup).rotation_integral(L, a);
 }
 
 std::vector<MomentRotationPoint> elastic_perfectly_plastic_law(double mp, double k_el, double theta_end) {
@@ -62,9 +55,8 @@ HardeningHingeLaw linear_hardening_hinge(const HardeningHingeInput& in, double t
   HardeningHingeLaw law;
   const double theta_p = in.mp / in.k_el;
   if (!(theta_end > theta_p)) throw std::invalid_argument("linear_hardening_hinge: theta_end must exceed theta_p");
-  if (in.setup == HingeSetup::uniform_moment) {
-    law.reason = "not defined for uniform_moment: with no moment gradient the whole zone yields at once, so "
-                 "there is no hinge slope independent of the zone length (use the moment-curvature integration)";
+  if (std::optional<std::string> why = loading_setup(in.setup).no_hardening_hinge_law()) {
+    law.reason = std::move(*why);
     return law;
   }
   law.defined = true;

@@ -27,7 +27,8 @@
 //     the range up to 5 theta_p). The law is M = Mp + K_sh theta_pl, theta = M / k_el + theta_pl.
 //     uniform_moment: no moment gradient; the whole zone yields at once (L_p = L (1 - Mp/M0) has
 //     no counterpart), so a hinge slope independent of the zone length does not exist: the law is
-//     reported as not defined, with that reason, and no number is invented.
+//     reported as not defined, with that reason, and no number is invented
+//     (LoadingSetup::no_hardening_hinge_law).
 //     A steel without strain hardening (E_t = 0): K_sh = 0, law (b) equals law (a).
 //
 // (c) Moment-curvature integration (model/laws/moment_curvature.hpp) along the statically
@@ -44,18 +45,16 @@
 #include "model/hinge/hinge_curve.hpp"
 #include "model/hinge_zone/hinge_zone_mesher.hpp"
 #include "model/laws/moment_curvature.hpp"
+#include "model/setups/loading_setup.hpp"
 
 #include <string>
 #include <vector>
 
 namespace rotcap {
 
-/// Coefficients (c1, c2) of the rotation integrals above [mm].
-struct RotationIntegral {
-  double c1 = 0.0;
-  double c2 = 0.0;
-};
-/// length L > 0; shear_span a (four_point only, 0 < a <= L/2). Throws std::invalid_argument.
+/// Coefficients (c1, c2) of the rotation integrals above (RotationIntegral, LoadingSetup::
+/// rotation_integral): length L > 0; shear_span a (four_point only, 0 < a <= L/2). Throws
+/// std::invalid_argument.
 RotationIntegral rotation_integral(HingeSetup setup, double length, double shear_span);
 
 /// (a): (0,0), (theta_p, Mp), (theta_end, Mp); theta_p = Mp / k_el. mp, k_el > 0, theta_end > theta_p.

@@ -1,5 +1,7 @@
 #include "model/patterns/imperfection.hpp"
 
+#include "model/setups/loading_setup.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
@@ -22,16 +24,8 @@ void require(bool ok, const std::string& key, double value, const std::string& e
   if (!ok) throw std::invalid_argument(key + " = " + num(value) + ": expected " + expected);
 }
 
-// Hinge sections x_h where the local wave trains start (header comment).
-std::vector<double> hinge_sections(const HingeZoneModel& h) {
-  switch (h.setup) {
-    case HingeSetup::cantilever: return {0.0};
-    case HingeSetup::three_point:
-    case HingeSetup::uniform_moment: return {0.5 * h.span};
-    case HingeSetup::four_point: return {h.shear_span, h.span - h.shear_span};
-  }
-  return {};
-}
+// Hinge sections x_h where the local wave trains start (header comment; the setup's class).
+std::vector<double> hinge_sections(const HingeZoneModel& h) { return h.loading().hinge_sections(h); }
 
 // Wave train along x: sum_h sin(pi (x - x_h) / lambda) e(|x - x_h|) with the envelope e of the
 // header (full first half-wave, raised-cosine fade over the next n - 1).
@@ -99,7 +93,7 @@ NodeOffsets half_sine_imperfection(const HingeZoneModel& hinge, const HalfSineOp
 
   ImperfectFlange which = o.flange;
   if (which == ImperfectFlange::compression)  // hogging cantilever; sagging beams (header)
-    which = hinge.setup == HingeSetup::cantilever ? ImperfectFlange::bottom : ImperfectFlange::top;
+    which = hinge.loading().top_flange_in_compression() ? ImperfectFlange::top : ImperfectFlange::bottom;
   const bool top = which == ImperfectFlange::top || which == ImperfectFlange::both;
   const bool bottom = which == ImperfectFlange::bottom || which == ImperfectFlange::both;
   const bool flanges = o.flange_amplitude > 0.0 && (top || bottom);
