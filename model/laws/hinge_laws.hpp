@@ -1,7 +1,7 @@
 #pragma once
 // Simple hinge laws, drawn beside the shell model's moment-rotation curve. Rotations follow the
 // same definitions as the shell run (interface.md, "Definitions the numbers follow";
-// model/hinge_zone/hinge_zone_mesher.hpp HingeRotation). Units: N mm, mm, rad.
+// each setup's class in model/setups/, HingeRotation). Units: N mm, mm, rad.
 //
 // (a) Elastic-perfectly plastic at Mp: theta = M / k_el up to Mp, then M = Mp.
 //

@@ -23,15 +23,17 @@
 //             envelope e(d) = 1 for d <= lambda, 0.5 (1 + cos(pi (d - lambda) / ((n - 1) lambda)))
 //             for lambda < d < n lambda, 0 beyond: n = half_waves half-waves each side, the first at
 //             full amplitude, the rest fading out (for n = 1 only the first);
-//   hinge sections x_h: cantilever x = 0 (the support; only x >= 0 exists), three_point L/2 (the
-//             load), four_point a and L - a (the loads), uniform_moment L/2;
+//   hinge sections x_h (LoadingSetup::hinge_sections, model/setups/): cantilever x = 0 (the
+//             support; only x >= 0 exists), three_point L/2 (the load), four_point a and L - a
+//             (the loads), uniform_moment L/2;
 //   flange    dz = A_f (2 y / b) w_f(x) (antisymmetric: the flange turns about the junction, one
 //             outstand up, the other down) or A_f (2 |y| / b) w_f(x) (symmetric), lambda_f = b/2,
 //             the outstand width c of the plate model; zero at the junction, +-A_f at the tips;
 //   web       dy = A_w sin(pi (z + zf) / (2 zf)) w_w(x), lambda_w = h_w = 2 zf (sine across the
 //             depth, zero at the junctions);
-//   the compression flange by default: bottom for the cantilever (hogging at the support under the
-//             downward tip load), top for three_point, four_point and uniform_moment (sagging);
+//   the compression flange by default (LoadingSetup::top_flange_in_compression): bottom for
+//             the cantilever (hogging at the support under the downward tip load), top for
+//             three_point, four_point and uniform_moment (sagging);
 //   the field between the flanges: dz interpolates linearly in z between the two flange fields at
 //             the same (x, y) (only stiffener nodes lie there off the web), dy is the web field at
 //             (x, z) for every node between the flanges. Nodes used by no element (reference nodes
