@@ -3,9 +3,9 @@
 // derived data `rotcap check` prints: section properties of the plate model and of the real
 // section, EN 1993-1-1 Table 5.2 classes with the limits used, Mel, Mp, theta_p (beam theory).
 #include "io/case_input.hpp"
-#include "model/hinge_zone_mesher.hpp"
-#include "model/i_section.hpp"
-#include "model/section_class.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
+#include "model/section/i_section.hpp"
+#include "model/section/section_class.hpp"
 
 #include <string>
 #include <vector>

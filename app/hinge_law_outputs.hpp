@@ -16,8 +16,8 @@
 #include "app/hinge_case.hpp"
 #include "app/hinge_stages.hpp"
 #include "io/svg_plot.hpp"
-#include "model/hinge_curve.hpp"
-#include "model/hinge_law_comparison.hpp"
+#include "model/hinge/hinge_curve.hpp"
+#include "model/laws/hinge_law_comparison.hpp"
 
 #include <filesystem>
 #include <string>

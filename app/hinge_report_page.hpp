@@ -4,8 +4,8 @@
 // the fitted law, the deformed hinge zone at the end, the caution.
 #include "app/hinge_case.hpp"
 #include "io/final_state.hpp"
-#include "model/hinge_curve.hpp"
-#include "model/hinge_law_comparison.hpp"
+#include "model/hinge/hinge_curve.hpp"
+#include "model/laws/hinge_law_comparison.hpp"
 
 #include <nlohmann/json.hpp>
 

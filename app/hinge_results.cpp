@@ -2,7 +2,7 @@
 
 #include "app/logging.hpp"
 #include "core/text_format.hpp"
-#include "model/section_deformation.hpp"
+#include "model/patterns/section_deformation.hpp"
 
 namespace rotcap::app {
 

@@ -4,7 +4,7 @@
 // added after the peak, and their summary.json keys and log lines.
 #include "app/hinge_case.hpp"
 #include "app/hinge_stages.hpp"
-#include "model/hinge_curve.hpp"
+#include "model/hinge/hinge_curve.hpp"
 
 #include <Eigen/Core>
 

@@ -2,9 +2,9 @@
 
 #include "app/logging.hpp"
 #include "core/text_format.hpp"
-#include "model/imperfection.hpp"
-#include "model/residual_stress_field.hpp"
-#include "model/section_deformation.hpp"
+#include "model/patterns/imperfection.hpp"
+#include "model/patterns/residual_stress_field.hpp"
+#include "model/patterns/section_deformation.hpp"
 #include "solver/linear_buckling.hpp"
 #include "solver/section_assignment.hpp"
 

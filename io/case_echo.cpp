@@ -2,6 +2,7 @@
 
 #include "io/case_file_parts.hpp"
 #include "io/input_error.hpp"
+#include "model/setups/loading_setup.hpp"
 
 #include <toml++/toml.h>
 
@@ -31,8 +32,9 @@ json steel(const SteelModel& s, ModelKind kind) {
 
 json member(const HingeZoneSpec& m) {
   json j = {{"setup", enum_name(m.setup)}, {"length", m.length}, {"axial_load_ratio", m.axial_load_ratio}};
-  if (m.setup == HingeSetup::four_point) j["load_spacing"] = m.load_spacing;
-  if (m.setup == HingeSetup::cantilever) j["support"] = enum_name(m.cantilever_support);
+  const LoadingSetup& setup = loading_setup(m.setup);
+  if (setup.needs_load_spacing()) j["load_spacing"] = m.load_spacing;
+  if (setup.allows_support_choice()) j["support"] = enum_name(m.cantilever_support);
   if (m.stiffeners == StiffenerPlacement::positions)
     j["stiffeners"] = m.stiffener_positions;
   else

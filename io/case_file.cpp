@@ -5,8 +5,9 @@
 #include "io/amplitude.hpp"
 #include "io/case_file_parts.hpp"
 #include "io/input_text.hpp"
-#include "model/i_section.hpp"
-#include "model/section_table.hpp"
+#include "model/section/i_section.hpp"
+#include "model/setups/loading_setup.hpp"
+#include "model/section/section_table.hpp"
 
 #include <fstream>
 #include <stdexcept>
@@ -161,17 +162,19 @@ void read_member(TableReader r, CaseInput& c) {
     r.fail("setup", "no value", "one of " + quote_list(enum_names<HingeSetup>()));
   m.setup = read_choice(r, "setup", m.setup);
   m.length = r.required_number("length", "the member length [mm] (cantilever: support to load; beams: span)");
-  if (m.setup == HingeSetup::four_point)
-    m.load_spacing = r.required_number("load_spacing",
-                                       "the distance between the two loads [mm] for setup = \"four_point\"");
+  const LoadingSetup& setup = loading_setup(m.setup);
+  if (setup.needs_load_spacing())
+    m.load_spacing = r.required_number("load_spacing", "the distance between the two loads [mm] for setup = " +
+                                                           quote(enum_name(m.setup)));
   else
     r.forbid("load_spacing", "no load_spacing with setup = " + quote(enum_name(m.setup)) +
-                                 " (four_point only)");
+                                 " (" + setup_names_where(&LoadingSetup::needs_load_spacing) + " only)");
   m.axial_load_ratio = r.number("axial_load_ratio", m.axial_load_ratio);
-  if (m.setup == HingeSetup::cantilever)
+  if (setup.allows_support_choice())
     m.cantilever_support = read_choice(r, "support", m.cantilever_support);
   else
-    r.forbid("support", "no support with setup = " + quote(enum_name(m.setup)) + " (cantilever only)");
+    r.forbid("support", "no support with setup = " + quote(enum_name(m.setup)) + " (" +
+                            setup_names_where(&LoadingSetup::allows_support_choice) + " only)");
   read_stiffeners(r, m);
   if (m.stiffeners == StiffenerPlacement::none)
     r.forbid("stiffener_thickness", "no stiffener_thickness with stiffeners = \"none\"");

@@ -14,12 +14,12 @@
 // --------------------------- ----------------------------------- -------------- --------------------
 // title                       string                              ""
 // [section] (generated)       either designation = "IPE 450" (the built-in table of
-//                             model/section_table.hpp: IPE, HEA, HEB; any spacing or case), or
+//                             model/section/section_table.hpp: IPE, HEA, HEB; any spacing or case), or
 //                             depth, flange_width, flange_thickness, web_thickness: numbers, all
 //                             required, > 0; 2 flange_thickness < depth; web_thickness <
 //                             flange_width; optional root_radius (rolled) or weld_throat
 //                             (welded) [mm], default 0, used only for the handbook properties
-//                             and checked by model/i_section.hpp validate()
+//                             and checked by model/section/i_section.hpp validate()
 // [steel] E                   number                              210000         E > 0
 //         nu                  number                              0.3            0 <= nu < 0.5
 //         curve               "elastic" | "elastic_plastic" | "bilinear" | "quadlinear" | "table"

@@ -1,5 +1,7 @@
 #include "io/case_input.hpp"
 
+#include "model/setups/loading_setup.hpp"
+
 namespace rotcap {
 
 namespace {
@@ -10,7 +12,9 @@ const std::string kSteelCurve[] = {
     steel_curve_kind_name(SteelCurveKind::elastic), steel_curve_kind_name(SteelCurveKind::elastic_plastic),
     steel_curve_kind_name(SteelCurveKind::bilinear), steel_curve_kind_name(SteelCurveKind::quadlinear),
     steel_curve_kind_name(SteelCurveKind::table)};
-const std::string kSetup[] = {"cantilever", "three_point", "four_point", "uniform_moment"};
+// The setups' spellings are their classes' own (LoadingSetup::name()).
+const std::string kSetup[] = {loading_setup(HingeSetup::cantilever).name(), loading_setup(HingeSetup::three_point).name(),
+                              loading_setup(HingeSetup::four_point).name(), loading_setup(HingeSetup::uniform_moment).name()};
 const std::string kStiffenerPlacement[] = {"supports_and_loads", "none", "positions"};
 const std::string kCantileverSupport[] = {"fixed", "symmetry"};
 const std::string kRestrainedFlange[] = {"both", "top", "bottom"};

@@ -10,8 +10,8 @@
 
 #include "materials/layered_shell_section.hpp"
 #include "materials/steel_curve.hpp"
-#include "model/hinge_zone_mesher.hpp"
-#include "model/residual_stress.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
+#include "model/patterns/residual_stress.hpp"
 #include "model/shell_model.hpp"
 #include "solver/path/path_follower.hpp"
 #include "solver/path/step_constraint.hpp"

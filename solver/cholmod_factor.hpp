@@ -91,7 +91,6 @@ class CholmodFactor {
   /// Nonzeros of L predicted by the symbolic analysis (diagonal included).
   double factor_nonzeros() const { return factor_nonzeros_; }
   /// Floating-point operations of one numeric factorisation, from the symbolic analysis.
-  double factor_flops() const { return factor_flops_; }
   /// Number of symbolic analyses (1 per object) and numeric factorisations done.
   int analysis_count() const { return analyses_; }
   int factorization_count() const { return factorizations_; }

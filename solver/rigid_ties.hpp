@@ -28,14 +28,12 @@ class RigidTieSet {
 
   bool empty() const { return tied_elements_.empty() && slaves_ == 0; }
   bool is_slave(int node) const { return master_[node] != node; }
-  int master_of(int node) const { return master_[node]; }
   /// Held DOFs of the model: supports plus every DOF of a tied node (size 6 nodes).
   std::vector<bool> held_dofs(const ShellModel& model) const;
   /// Element node lists with tied nodes replaced by their masters (for the sparsity pattern).
   std::vector<ElementNodes> effective_nodes(const ShellModel& model) const;
   /// Elements with at least one tied node, ascending.
   const std::vector<int>& tied_elements() const { return tied_elements_; }
-  bool is_tied_element(int e) const { return tied_flag_[e] != 0; }
 
   /// Moves every tied node onto its master's rigid motion (u: translations, R: rotations).
   void place_slaves(const std::vector<Eigen::Vector3d>& X, std::vector<Eigen::Vector3d>& u,

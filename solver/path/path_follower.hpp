@@ -76,8 +76,6 @@ class PathFollower {
   PathFollower(EquilibriumProblem& problem, const StepConstraint& constraint, PathOptions options);
   /// Starts from the committed state of the problem at load factor lambda0.
   PathSummary run(const Observer& observer, double lambda0 = 0.0);
-  /// Total translational displacement accumulated since run() began (free DOFs, additive).
-  const Eigen::VectorXd& total_increment() const { return u_total_; }
 
  private:
   enum class Attempt { Converged, Diverged, Failed };

@@ -184,7 +184,7 @@ TEST(InputErrors, SectionDesignationAndPlateRulesNameTheirKeys) {
                       "(did you mean \"IPE 450\"?)"});
   expect_input_error([] { generated(replaced(kGenerated, "depth = 300", "designation = \"IPE 300\"\ndepth = 300")); },
                      {"beam.toml:3: section.depth: found an integer (300); expected either designation or the plate dimensions"});
-  // A root radius larger than the flange outstand (150 - 7.1)/2: model/i_section.hpp's rule.
+  // A root radius larger than the flange outstand (150 - 7.1)/2: model/section/i_section.hpp's rule.
   expect_input_error([] { generated(replaced(kGenerated, "web_thickness = 7.1", "web_thickness = 7.1\nroot_radius = 80")); },
                      {"beam.toml:6: section.root_radius: found 80 mm; expected < 71.45 mm"});
 }

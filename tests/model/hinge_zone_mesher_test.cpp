@@ -1,6 +1,6 @@
 // Hinge-zone mesher: topology, grading, supports and loads of the four setups.
-#include "model/hinge_zone_mesher.hpp"
-#include "model/section_table.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
+#include "model/section/section_table.hpp"
 #include "tests/test_support.hpp"
 
 #include <Eigen/Geometry>

@@ -3,8 +3,8 @@
 // columns come from the open data set waynemaranga/steelsnakes (IPE.json, HE.json; CONF-2nd,
 // a secondary compilation of the EN 10365 / SCI-ArcelorMittal tables), the DERIVED columns are
 // exact fillet-inclusive integrals of the same dimensions.
-#include "model/i_section.hpp"
-#include "model/section_table.hpp"
+#include "model/section/i_section.hpp"
+#include "model/section/section_table.hpp"
 #include "tests/test_support.hpp"
 
 #include <cmath>

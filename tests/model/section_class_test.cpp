@@ -1,8 +1,8 @@
 // Cross-section classification, EN 1993-1-1:2005 Table 5.2 (limits CONFIRMED in
 // /work/shared/references.md section 4), against the derived classification table of
 // references.md section 7 (c/t from the data set's dimensions, DERIVED).
-#include "model/section_class.hpp"
-#include "model/section_table.hpp"
+#include "model/section/section_class.hpp"
+#include "model/section/section_table.hpp"
 #include "tests/test_support.hpp"
 
 #include <cmath>

@@ -2,8 +2,8 @@
 // (waynemaranga/steelsnakes IPE.json / HE.json, commit 38bc16a3, CONF-2nd) checked against the
 // rows of /work/shared/references.md section 7 and against the properties computed from the
 // dimensions.
-#include "model/section_class.hpp"
-#include "model/section_table.hpp"
+#include "model/section/section_class.hpp"
+#include "model/section/section_table.hpp"
 #include "tests/test_support.hpp"
 
 #include <algorithm>

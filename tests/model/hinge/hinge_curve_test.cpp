@@ -5,7 +5,7 @@
 // "Definitions the numbers follow". Every expected value below is worked out by hand in the
 // comment beside it (DERIVED), so the tolerances are round-off only (1e-12 relative, about
 // 1e4 ulp of the few operations involved) unless a comment says otherwise.
-#include "model/hinge_curve.hpp"
+#include "model/hinge/hinge_curve.hpp"
 #include "tests/test_support.hpp"
 
 #include <cmath>

@@ -1,7 +1,7 @@
 // The rotation at which a hinge curve first falls below a comparison law by more than a band.
 // Synthetic polylines with hand-worked crossings (DERIVED in the comment beside each value);
 // tolerances are round-off (1e-12 relative).
-#include "model/hinge_curve.hpp"
+#include "model/hinge/hinge_curve.hpp"
 #include "tests/test_support.hpp"
 
 #include <stdexcept>

@@ -1,5 +1,5 @@
 // The fitted multilinear M - theta_plastic law: its rule and its 3 % bound.
-#include "model/fitted_hinge_law.hpp"
+#include "model/laws/fitted_hinge_law.hpp"
 #include "tests/test_support.hpp"
 
 #include <cmath>

@@ -1,7 +1,7 @@
 // The simple hinge laws: member integration of M-kappa, elastic-perfectly plastic and linear
 // strain-hardening hinges.
 #include "materials/steel_curve.hpp"
-#include "model/hinge_laws.hpp"
+#include "model/laws/hinge_laws.hpp"
 #include "tests/test_support.hpp"
 
 #include <cmath>
@@ -34,7 +34,7 @@ TEST(MemberRotation, CantileverElasticRangeEqualsBeamTheory) {
 }
 
 TEST(MemberRotation, ElasticCoefficientsMatchBeamTheoryOfEverySetup) {
-  // Elastic theta(M) of each setup equals beam_theory_rotation_at_mp's formulas (model/hinge_zone_mesher.hpp):
+  // Elastic theta(M) of each setup equals beam_theory_rotation_at_mp's formulas (model/setups/):
   // three_point M L/(3EI); four_point M (3L - 4a)/(3EI); uniform_moment M L/(EI).
   const double E = 210000.0, fy = 355.0, L = 3000.0, a = 1000.0;
   const MomentCurvatureCurve mk = section_curve(UniaxialFibreLaw(E, {{fy / E, fy}}), 0.05);

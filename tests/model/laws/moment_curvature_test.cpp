@@ -1,6 +1,6 @@
 // Moment-curvature by fibre integration against closed forms.
 #include "materials/steel_curve.hpp"
-#include "model/moment_curvature.hpp"
+#include "model/laws/moment_curvature.hpp"
 #include "tests/test_support.hpp"
 
 #include <cmath>
@@ -54,7 +54,7 @@ TEST(MomentCurvature, RectangleElasticPerfectlyPlasticMatchesClosedForm) {
 }
 
 TEST(MomentCurvature, ISectionYieldsAtElasticMomentAndTendsToPlasticMoment) {
-  // Plate model: My = fy Wel,y and M -> fy Wpl,y (model/i_section.hpp closed forms).
+  // Plate model: My = fy Wel,y and M -> fy Wpl,y (model/section/i_section.hpp closed forms).
   const ISection s = ipe300_plates();
   const SectionProperties p = plate_model_properties(s);
   const double E = 210000.0, fy = 355.0;
@@ -71,7 +71,7 @@ TEST(MomentCurvature, ISectionYieldsAtElasticMomentAndTendsToPlasticMoment) {
 }
 
 TEST(MomentCurvature, ResidualStressLowersFirstYieldButNotPlasticMoment) {
-  // ECCS hot-rolled pattern (0.3 fy at the flange tips for h/b > 1.2, model/residual_stress.hpp).
+  // ECCS hot-rolled pattern (0.3 fy at the flange tips for h/b > 1.2, model/patterns/residual_stress.hpp).
   const ISection s = ipe300_plates();
   const SectionProperties p = plate_model_properties(s);
   const double E = 210000.0, fy = 355.0;

@@ -1,7 +1,7 @@
 // Imperfections of hinge-zone models: the global bow, the analytical half-sine local pattern
 // (amplitudes, shapes, the compression flange, compatibility at shared nodes) and the choice and
 // scaling of a local buckling mode.
-#include "model/imperfection.hpp"
+#include "model/patterns/imperfection.hpp"
 #include "tests/model/patterns/pattern_fields.hpp"
 #include "tests/test_support.hpp"
 

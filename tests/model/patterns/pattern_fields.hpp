@@ -1,8 +1,8 @@
 #pragma once
 // Synthetic displacement fields on hinge-zone models for the deformation-shape and imperfection
 // tests: rigid section motions, a flange wave, a web bulge, a lateral-torsional field.
-#include "model/hinge_zone_mesher.hpp"
-#include "model/section_table.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
+#include "model/section/section_table.hpp"
 
 #include <Eigen/Core>
 #include <Eigen/Geometry>

@@ -1,6 +1,6 @@
 // Residual stress patterns: self-equilibrium on the plate model, the ECCS h/b switch, values at
 // the tips and junctions, the welded bands, and the rotation into a shell's local frame.
-#include "model/residual_stress.hpp"
+#include "model/patterns/residual_stress.hpp"
 #include "tests/model/patterns/pattern_fields.hpp"
 #include "tests/test_support.hpp"
 

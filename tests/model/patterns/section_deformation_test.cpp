@@ -1,7 +1,7 @@
 // Deformation-shape analysis on synthetic fields of an IPE 300 cantilever hinge-zone model:
 // rigid section motions give no distortion, flange waves, web bulges and lateral-torsional
 // fields get their labels, small fields none, and the two tie-break rules of the header.
-#include "model/section_deformation.hpp"
+#include "model/patterns/section_deformation.hpp"
 #include "tests/model/patterns/pattern_fields.hpp"
 #include "tests/test_support.hpp"
 

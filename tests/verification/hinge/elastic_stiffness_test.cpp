@@ -48,7 +48,7 @@ TEST(HingeElasticCantilever, InitialSlopeMatchesTimoshenkoBeamWithShear) {
   print_comparison("theta_p [mrad] vs Euler-Bernoulli Mp L / (3 E I) (no shear; for information)", 1e3 * bending,
                    1e3 * theta_p, "beam theory");
   EXPECT_CLOSE(theta_p, theta_p_ref, 0.03, 0.0);
-  // The summary's beam-theory value is the bending term alone (model/hinge_zone_mesher.hpp).
+  // The summary's beam-theory value is the bending term alone (model/hinge_zone/hinge_zone_mesher.hpp).
   EXPECT_CLOSE(1e-3 * s["theta_p_beam_mrad"].get<double>(), bending, 1e-6, 0.0);
   // The curve is linear over the three steps: every point on the same slope within 0.1 %.
   const CurveTable c = read_curve(run.results / "curve.csv");

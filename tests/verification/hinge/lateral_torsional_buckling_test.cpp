@@ -2,7 +2,7 @@
 // uniform moment, by `rotcap buckle` (ltb_uniform_moment_4m.toml, _8m.toml: IPE 300 as plates,
 // h 300, b 150, tf 10.7, tw 7.1 mm, E 210 000, nu 0.3, L = 4 m and 8 m, mesh 4 x 4, aspect 2).
 //
-// End conditions the setup imposes (model/hinge_zone_mesher.hpp): rigid end sections tied to
+// End conditions the setup imposes (model/setups/uniform_moment_setup.hpp): rigid end sections tied to
 // reference nodes fixed in lateral and vertical translation and in twist, free to rotate about
 // both bending axes. So at both ends: twist phi = 0, lateral displacement u = 0, rotation about z
 // free (u'' = 0) and warping held (phi' = 0, the section cannot warp).
@@ -23,13 +23,13 @@
 //    here it is 11.6 % below the exact value at both lengths; the 6 % check is made against the
 //    exact solution, and the NCCI value is printed (and checked to lie below) beside it.
 // The lowest mode must be lateral-torsional: its shape is read back from modes/mode_01.vtu and
-// classified with model/section_deformation.hpp on the same mesh rebuilt here; the nearest local
+// classified with model/patterns/section_deformation.hpp on the same mesh rebuilt here; the nearest local
 // mode (the first mode classified as flange or web local buckling) is printed.
 #include "tests/test_support.hpp"
 #include "tests/verification/hinge/hinge_run.hpp"
 
-#include "model/hinge_zone_mesher.hpp"
-#include "model/section_deformation.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
+#include "model/patterns/section_deformation.hpp"
 
 #include <gtest/gtest.h>
 

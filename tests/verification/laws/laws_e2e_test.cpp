@@ -1,7 +1,7 @@
 // End-to-end checks of the hinge-law comparison (app/hinge_laws_stage.hpp) with the rotcap binary:
 //  - stocky class 1 cantilever (cases/stocky_cantilever.toml): shell and moment-curvature
 //    integration agree within 5 % of Mp up to 5 theta_p (no local buckling; the integration is
-//    exact beam theory of the same steel, model/hinge_laws.hpp, so this is a two-method check);
+//    exact beam theory of the same steel, model/laws/hinge_laws.hpp, so this is a two-method check);
 //  - class 4 flange cantilever (cases/slender_flange_cantilever.toml): the flange buckles, the
 //    shell falls more than 5 % below the integration and the report names the rotation;
 //  - the fitted law of both runs re-checked here from curve.csv and hinge_law.csv (3 % bound);
@@ -90,7 +90,7 @@ std::vector<Row> read_csv(const fs::path& f) {
 
 /// The fitted law's 3 % bound, checked independently of rotcap's own check: every curve point
 /// from the law's first point on, at its plastic rotation theta - M / k_el (running maximum, as
-/// model/fitted_hinge_law.hpp defines), against the law interpolated from hinge_law.csv.
+/// model/laws/fitted_hinge_law.hpp defines), against the law interpolated from hinge_law.csv.
 double fitted_law_deviation(const fs::path& out, std::size_t& points) {
   const json s = summary_of(out);
   const double k_el = s["fitted_law"]["k_el_kNm_per_mrad"].get<double>();  // kNm / mrad

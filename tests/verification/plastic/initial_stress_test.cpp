@@ -28,7 +28,7 @@
 //    yields the beam leaves the committed state (max plastic strain, displacements) untouched, a
 //    revert() returns the internal force to its committed value bit for bit, commit() then keeps it.
 
-#include "model/hinge_zone_mesher.hpp"
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
 #include "solver/nonlinear/equilibrate.hpp"
 #include "solver/nonlinear/shell_problem.hpp"
 #include "tests/test_support.hpp"

@@ -1,0 +1,221 @@
+#include "model/hinge_zone/hinge_zone_mesher.hpp"
+
+#include "core/option_error.hpp"
+#include "core/text_format.hpp"
+#include "materials/steel_curve.hpp"
+
+#include "model/hinge_zone/section_grid.hpp"
+#include "model/hinge_zone/station_grading.hpp"
+#include "model/setups/loading_setup.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <set>
+#include <stdexcept>
+
+namespace rotcap {
+
+namespace {
+
+constexpr int kTopFlange = 0, kBottomFlange = 1, kWeb = 2, kStiffener = 3;
+
+std::string num(double v) { return format_number(v); }
+
+[[noreturn]] void reject(const std::string& key, const std::string& found, const std::string& expected) {
+  throw OptionError(key, found, expected);
+}
+
+}  // namespace
+
+void validate(const HingeZoneSpec& s) {
+  const LoadingSetup& setup = loading_setup(s.setup);
+  validate(s.section);
+  const double L = s.length;
+  if (!(L > 0.0) || !std::isfinite(L)) reject("member.length", num(L) + " mm", "a finite length > 0");
+  require_yield_strength(s.fy);
+  if (s.flange_elements < 4 || s.flange_elements % 2 != 0)
+    reject("mesh.flange_elements", std::to_string(s.flange_elements),
+           "an even number >= 4 (the web meets the flange at its centre line)");
+  if (s.web_elements < 4) reject("mesh.web_elements", std::to_string(s.web_elements), ">= 4");
+  if (!(s.aspect > 0.0) || !std::isfinite(s.aspect)) reject("mesh.aspect", num(s.aspect), "a finite value > 0");
+  if (setup.needs_load_spacing()) {
+    if (!(s.load_spacing > 0.0 && s.load_spacing < L))
+      reject("member.load_spacing", num(s.load_spacing) + " mm",
+             "0 < spacing < length = " + num(L) + " mm for setup = \"" + setup.name() + "\"");
+  } else if (s.load_spacing != 0.0) {
+    reject("member.load_spacing", num(s.load_spacing) + " mm",
+           "no load spacing: it applies to setup = " + setup_names_where(&LoadingSetup::needs_load_spacing) + " only");
+  }
+  if (!setup.allows_axial_load() && s.axial_load_ratio != 0.0)
+    reject("member.axial_load_ratio", num(s.axial_load_ratio),
+           "0: an axial load applies to setup = " + setup_names_where(&LoadingSetup::allows_axial_load) + " only");
+  if (!(s.axial_load_ratio >= 0.0 && s.axial_load_ratio < 1.0))
+    reject("member.axial_load_ratio", num(s.axial_load_ratio), "0 <= N/Npl < 1 (compression positive)");
+  if (s.stiffener_thickness && (!(*s.stiffener_thickness > 0.0) || !std::isfinite(*s.stiffener_thickness)))
+    reject("member.stiffener_thickness", num(*s.stiffener_thickness) + " mm", "a finite thickness > 0");
+  if (s.stiffeners == StiffenerPlacement::none && !s.stiffener_positions.empty())
+    reject("member.stiffeners", "none with " + std::to_string(s.stiffener_positions.size()) + " positions",
+           "either no stiffeners or a list of positions");
+  for (std::size_t k = 0; k < s.stiffener_positions.size(); ++k) {
+    const double x = s.stiffener_positions[k];
+    if (!(x >= 0.0 && x <= L))
+      reject("member.stiffeners[" + std::to_string(k) + "]", num(x) + " mm", "0 <= x <= length = " + num(L) + " mm");
+    if (k > 0 && !(x > s.stiffener_positions[k - 1]))
+      reject("member.stiffeners[" + std::to_string(k) + "]", num(x) + " mm",
+             "strictly increasing positions (after " + num(s.stiffener_positions[k - 1]) + " mm)");
+  }
+  for (std::size_t k = 0; k < s.lateral_restraints.size(); ++k) {
+    const double x = s.lateral_restraints[k].x;
+    if (!(x >= 0.0 && x <= L))
+      reject("restraints.lateral[" + std::to_string(k) + "].x", num(x) + " mm",
+             "0 <= x <= length = " + num(L) + " mm");
+  }
+}
+
+HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
+  const LoadingSetup& setup = loading_setup(spec.setup);
+  validate(spec);
+  const ISection& sec = spec.section;
+  const double L = spec.length;
+  const int nf = spec.flange_elements, nw = spec.web_elements;
+  const double he = spec.aspect * sec.b / nf;
+  const double tol = 1e-6 * L;  // special x's closer than this share a station
+
+  HingeZoneModel out;
+  out.setup = spec.setup;
+  out.plate = plate_model_properties(sec);
+  out.plastic_moment = plastic_moment(out.plate, spec.fy);
+  out.moment_per_load_factor = out.plastic_moment;
+  out.hinge_element_length = he;
+  out.span = L;
+
+  // Loads, rigid ends and the hinge region of the setup.
+  const int n_hinge = static_cast<int>(std::ceil(1.5 * std::max(sec.h, sec.b) / he - 1e-9));
+  const SetupStations special = setup.stations(spec, n_hinge * he);
+  const std::vector<double>& loads = special.loads;
+  const double hinge_lo = special.hinge_lo, hinge_hi = special.hinge_hi;
+
+  // Stiffener positions: the setup's (supports and loads), plus listed ones; none at rigid ends.
+  std::vector<double> stiff;
+  if (spec.stiffeners == StiffenerPlacement::supports_and_loads) stiff = special.default_stiffeners;
+  if (spec.stiffeners != StiffenerPlacement::none)
+    stiff.insert(stiff.end(), spec.stiffener_positions.begin(), spec.stiffener_positions.end());
+  std::erase_if(stiff, [&](double x) { return (special.rigid_start && x <= tol) || (special.rigid_end && x >= L - tol); });
+  stiff = stiff.empty() ? stiff : unique_points(stiff, L, tol);
+
+  // Hard points: ends, loads, stiffeners, restraints; the hinge-region ends where they are at
+  // least one hinge element from every other hard point (so the hinge elements are exactly h_e).
+  std::vector<double> hard{0.0, L};
+  hard.insert(hard.end(), loads.begin(), loads.end());
+  hard.insert(hard.end(), stiff.begin(), stiff.end());
+  for (const auto& r : spec.lateral_restraints) hard.push_back(r.x);
+  hard = unique_points(hard, L, tol);
+  std::vector<double> with_hinge = hard;
+  for (double x : {hinge_lo, hinge_hi}) {
+    bool clear = x > he && x < L - he;
+    for (double p : hard) clear = clear && std::abs(p - x) >= he;
+    if (clear) with_hinge.push_back(x);
+  }
+  Stations st{grade_stations(unique_points(with_hinge, L, tol), he, hinge_lo, hinge_hi), tol};
+  out.stations = st.x;
+
+  // Nodes: the cross-section at every station, then stiffener interiors, then reference nodes.
+  ShellModel& m = out.model;
+  m.region_names = {"top_flange", "bottom_flange", "web", "stiffener"};
+  const SectionGrid g{nf, nw};
+  const double zf = 0.5 * (sec.h - sec.tf);
+  // Measured from the web (y = 0) and the mid-depth, so the centre lines are exactly y = 0, z = 0.
+  auto y_of = [&](int k) { return (k - nf / 2) * (sec.b / nf); };
+  auto z_of = [&](int mm) { return (mm - 0.5 * nw) * (2.0 * zf / nw); };
+  const int n_st = static_cast<int>(st.x.size());
+  m.nodes.reserve(static_cast<std::size_t>(n_st) * g.per());
+  for (int i = 0; i < n_st; ++i) {
+    for (int k = 0; k <= nf; ++k) m.nodes.emplace_back(st.x[i], y_of(k), -zf);
+    for (int k = 0; k <= nf; ++k) m.nodes.emplace_back(st.x[i], y_of(k), zf);
+    for (int mm = 1; mm < nw; ++mm) m.nodes.emplace_back(st.x[i], 0.0, z_of(mm));
+  }
+
+  // Elements between stations: flanges CCW about +z, web CCW about +y.
+  for (int i = 0; i + 1 < n_st; ++i) {
+    for (int k = 0; k < nf; ++k) {
+      m.elements.push_back({{g.top(i, k), g.top(i + 1, k), g.top(i + 1, k + 1), g.top(i, k + 1)}, sec.tf, kTopFlange});
+      m.elements.push_back(
+          {{g.bottom(i, k), g.bottom(i + 1, k), g.bottom(i + 1, k + 1), g.bottom(i, k + 1)}, sec.tf, kBottomFlange});
+    }
+    for (int mm = 0; mm < nw; ++mm)
+      m.elements.push_back({{g.web(i, mm), g.web(i, mm + 1), g.web(i + 1, mm + 1), g.web(i + 1, mm)}, sec.tw, kWeb});
+  }
+
+  // Stiffeners: a (nf + 1) x (nw + 1) grid in the y-z plane, CCW about +x; its bottom and top
+  // rows are the flange nodes, its k = nf/2 column the web nodes.
+  const double ts = spec.stiffener_thickness.value_or(sec.tf);
+  for (double xs : stiff) {
+    const int i = st.at(xs);
+    out.stiffener_x.push_back(st.x[i]);
+    std::vector<int> grid((nf + 1) * (nw + 1));
+    auto id = [&](int k, int mm) -> int& { return grid[mm * (nf + 1) + k]; };
+    for (int mm = 0; mm <= nw; ++mm)
+      for (int k = 0; k <= nf; ++k) {
+        if (mm == 0) id(k, mm) = g.bottom(i, k);
+        else if (mm == nw) id(k, mm) = g.top(i, k);
+        else if (k == nf / 2) id(k, mm) = g.web(i, mm);
+        else {
+          id(k, mm) = m.node_count();
+          m.nodes.emplace_back(st.x[i], y_of(k), z_of(mm));
+        }
+      }
+    for (int mm = 0; mm < nw; ++mm)
+      for (int k = 0; k < nf; ++k)
+        m.elements.push_back({{id(k, mm), id(k + 1, mm), id(k + 1, mm + 1), id(k, mm + 1)}, ts, kStiffener});
+  }
+
+  // Supports, ties, loads and the hinge-rotation measure of the setup.
+  const int last = n_st - 1, c = nf / 2;
+  out.axial_force = spec.axial_load_ratio * out.plate.A * spec.fy;
+  setup.apply(HingeZoneMesh{spec, g, st, out});
+
+  // Lateral restraints on the flange centre-line nodes; none at a rigidly tied end section.
+  for (std::size_t k = 0; k < spec.lateral_restraints.size(); ++k) {
+    const LateralBrace& r = spec.lateral_restraints[k];
+    const int i = st.at(r.x);
+    NodeGroup group;
+    if (r.flange != RestrainedFlange::bottom) group.nodes.push_back(g.top(i, c));
+    if (r.flange != RestrainedFlange::top) group.nodes.push_back(g.bottom(i, c));
+    std::sort(group.nodes.begin(), group.nodes.end());
+    for (int n : group.nodes) group.cells.push_back({n});
+    const std::string name = "restraint_" + std::to_string(k);
+    m.groups[name] = group;
+    if (!setup.tied_section(i, last)) m.supports.push_back(support(name, {Dof::uy}));
+  }
+  return out;
+}
+
+double beam_theory_rotation_at_mp(const HingeZoneModel& m, double E) {
+  if (!(E > 0.0)) throw std::invalid_argument("steel.E = " + num(E) + " MPa: expected > 0");
+  const double EI = E * m.plate.Iy;
+  return m.loading().beam_theory_rotation_at_mp(m, EI);
+}
+
+MeshStatistics mesh_statistics(const ShellModel& model) {
+  MeshStatistics s;
+  s.nodes = model.node_count();
+  s.elements = model.element_count();
+  s.dofs = model.dof_count();
+  std::set<int> tied;
+  for (const auto& t : model.rigid_ties)
+    if (const auto g = model.groups.find(t.group); g != model.groups.end()) tied.insert(g->second.nodes.begin(), g->second.nodes.end());
+  std::set<std::pair<int, int>> fixed;
+  for (const auto& sup : model.supports) {
+    const auto g = model.groups.find(sup.group);
+    if (g == model.groups.end()) continue;
+    for (int n : g->second.nodes)
+      for (int d = 0; d < kDofsPerNode; ++d)
+        if (sup.fixed[d] && !tied.count(n)) fixed.insert({n, d});
+  }
+  s.tied_nodes = static_cast<int>(tied.size());
+  s.fixed_dofs = static_cast<int>(fixed.size());
+  s.free_dofs = s.dofs - kDofsPerNode * s.tied_nodes - s.fixed_dofs;
+  return s;
+}
+
+}  // namespace rotcap

@@ -1,0 +1,59 @@
+#include "model/setups/four_point_setup.hpp"
+
+#include "model/setups/end_bearings.hpp"
+
+#include <algorithm>
+#include <cstdio>
+#include <stdexcept>
+
+namespace rotcap {
+
+SetupStations FourPointSetup::stations(const HingeZoneSpec& spec, double hinge_reach) const {
+  const double L = spec.length, a = shear_span(spec);
+  SetupStations s;
+  s.loads = {a, L - a};
+  s.default_stiffeners = {0.0, L};
+  s.default_stiffeners.insert(s.default_stiffeners.end(), s.loads.begin(), s.loads.end());
+  s.hinge_lo = std::max(0.0, a - hinge_reach);
+  s.hinge_hi = std::min(L, L - a + hinge_reach);
+  return s;
+}
+
+void FourPointSetup::apply(const HingeZoneMesh& mesh) const {
+  const SectionGrid& g = mesh.grid;
+  HingeZoneModel& out = mesh.out;
+  ShellModel& m = out.model;
+  const double L = mesh.spec.length, Mp = out.plastic_moment, a = shear_span(mesh.spec);
+  const int c = mesh.centre();
+  add_end_bearings(mesh);
+  const int ia = mesh.stations.at(a), ib = mesh.stations.at(L - a);
+  m.groups["load_point_a"] = point_group(g.top(ia, c));
+  m.groups["load_point_b"] = point_group(g.top(ib, c));
+  m.groups["deflection_a"] = point_group(g.bottom(ia, c));
+  m.groups["deflection_b"] = point_group(g.bottom(ib, c));
+  out.reference_load = Mp / a;
+  out.lever_arm = out.shear_span = a;
+  for (const char* name : {"load_point_a", "load_point_b"})
+    m.loads.push_back({name, Eigen::Vector3d(0.0, 0.0, -out.reference_load), Eigen::Vector3d::Zero()});
+  out.rotation = {{g.bottom(ia, c), g.bottom(ib, c)}, Dof::uz, {-1.0 / a, -1.0 / a}};
+}
+
+double FourPointSetup::beam_theory_rotation_at_mp(const HingeZoneModel& m, double EI) const {
+  // delta(a) = P a^2 (3 L - 4 a) / (6 EI), theta = 2 delta / a
+  return m.plastic_moment * (3.0 * m.span - 4.0 * m.shear_span) / (3.0 * EI);
+}
+
+RotationIntegral FourPointSetup::rotation_integral(double L, double a) const {
+  if (!(a > 0.0) || a > 0.5 * L) {
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.4g", a);
+    throw std::invalid_argument(std::string("shear span ") + buf + " mm: expected 0 < a <= L/2");
+  }
+  return {2.0 * a, L - 2.0 * a};
+}
+
+std::vector<double> FourPointSetup::hinge_sections(const HingeZoneModel& m) const {
+  return {m.shear_span, m.span - m.shear_span};
+}
+
+}  // namespace rotcap
