@@ -1,5 +1,6 @@
 // rotcap buckle CASE.toml: linear buckling load factors and mode shapes under the reference load.
 #include "app/commands.hpp"
+#include "core/text_format.hpp"
 #include "app/field_export.hpp"
 #include "app/logging.hpp"
 #include "app/model_builder.hpp"
@@ -49,8 +50,7 @@ int command_buckle(const CommandOptions& options) {
   std::filesystem::create_directories(folder / "modes");
   PvdCollection pvd(folder / "modes.pvd");
   for (std::size_t k = 0; k < result.modes.size(); ++k) {
-    char name[32];
-    std::snprintf(name, sizeof name, "mode_%02zu.vtu", k + 1);
+    const std::string name = format_text("mode_%02zu.vtu", k + 1);
     write_shell_fields(folder / "modes" / name, built.model, result.modes[k], ElementResults{});
     pvd.add(static_cast<double>(k + 1), folder / "modes" / name);
   }
@@ -59,14 +59,11 @@ int command_buckle(const CommandOptions& options) {
     out << j.dump(2) << "\n";
   }
   for (std::size_t k = 0; k < result.load_factors.size(); ++k) {
-    char line[128];
-    std::snprintf(line, sizeof line, "mode %2zu: load factor %.6g", k + 1, result.load_factors[k]);
-    std::string text = line;
-    if (built.hinge) {
-      std::snprintf(line, sizeof line, "  (critical hinge moment %.4g kNm = %.4g Mp)",
-                    result.load_factors[k] * built.hinge->zone.moment_per_load_factor / 1e6, result.load_factors[k]);
-      text += line;
-    }
+    std::string text = format_text("mode %2zu: load factor %.6g", k + 1, result.load_factors[k]);
+    if (built.hinge)
+      text += format_text("  (critical hinge moment %.4g kNm = %.4g Mp)",
+                          result.load_factors[k] * built.hinge->zone.moment_per_load_factor / 1e6,
+                          result.load_factors[k]);
     log_info(text);
   }
   if (result.sturm.done)

@@ -4,6 +4,8 @@
 #include "io/case_file.hpp"
 #include "io/general_model.hpp"
 #include "io/input_error.hpp"
+#include "solver/section_assignment.hpp"
+#include "solver/shell_element_set.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -46,6 +48,15 @@ BuiltCase build_case(const std::filesystem::path& case_file, std::optional<doubl
       validate_topology(built.model);
     } catch (const std::invalid_argument& e) {
       throw InputError(built.input.model.mesh, 0, "", e.what(), "a mesh in which every node belongs to a shell");
+    }
+    // The element shapes are the mesh's: a degenerate or badly warped quadrilateral is bad input,
+    // found here (as the shell elements are built) rather than as an error inside an analysis.
+    try {
+      const SectionAssignment probe = SectionAssignment::elastic(built.model, built.input.steel.E, built.input.steel.nu);
+      const ShellElementSet elements(built.model, probe);
+    } catch (const std::invalid_argument& e) {
+      throw InputError(built.input.model.mesh, 0, "$Elements", e.what(),
+                       "quadrilaterals the shell element accepts (not degenerate, not strongly warped)");
     }
     built.description.push_back("general model from " + built.input.model.mesh.string());
     return built;

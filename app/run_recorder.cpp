@@ -1,4 +1,5 @@
 #include "app/run_recorder.hpp"
+#include "core/text_format.hpp"
 #include "io/atomic_file.hpp"
 
 #include "io/input_error.hpp"
@@ -26,8 +27,7 @@ bool RunRecorder::has_fields(int step) const {
 void RunRecorder::write_fields(int step, double time, const ShellModel& model, const Eigen::VectorXd& u,
                                const ElementResults& results) {
   if (has_fields(step)) return;
-  char name[32];
-  std::snprintf(name, sizeof name, "step_%04d.vtu", step);
+  const std::string name = format_text("step_%04d.vtu", step);
   write_shell_fields(folder_ / "fields" / name, model, u, results);
   pvd_.add(time, folder_ / "fields" / name);
   written_.push_back(step);

@@ -1,4 +1,5 @@
 #include "io/curve_csv.hpp"
+#include "core/text_format.hpp"
 
 #include "io/input_error.hpp"
 
@@ -22,9 +23,7 @@ std::string csv_name(const std::string& name) {
 std::string csv_value(double v) {
   if (std::isnan(v)) return "nan";
   if (std::isinf(v)) return v > 0 ? "inf" : "-inf";
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.10g", v);
-  return buf;
+  return format_number(v);
 }
 
 }  // namespace

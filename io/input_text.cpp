@@ -7,12 +7,6 @@
 
 namespace rotcap {
 
-std::string format_number(double value) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.10g", value);
-  return buf;
-}
-
 std::string quote(std::string_view text) {
   std::string q = "\"";
   for (char c : text) {

@@ -2,14 +2,13 @@
 // Text helpers for input messages: number formatting, quoting, and the "did you mean" suggestion
 // (nearest valid name by edit distance). Used by the case-file and mesh readers.
 
+#include "core/text_format.hpp"  // format_number
+
 #include <span>
 #include <string>
 #include <string_view>
 
 namespace rotcap {
-
-/// %.10g formatting ("355", "0.0001", "2.5e+06").
-std::string format_number(double value);
 
 /// The text in double quotes, with embedded quotes and backslashes escaped.
 std::string quote(std::string_view text);

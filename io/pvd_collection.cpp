@@ -1,4 +1,5 @@
 #include "io/pvd_collection.hpp"
+#include "core/text_format.hpp"
 
 #include "io/atomic_file.hpp"
 #include "io/input_error.hpp"
@@ -24,10 +25,8 @@ void PvdCollection::write() const {
   out << "<?xml version=\"1.0\"?>\n"
       << "<VTKFile type=\"Collection\" version=\"0.1\" byte_order=\"LittleEndian\">\n"
       << "  <Collection>\n";
-  char time[32];
   for (const Entry& e : entries_) {
-    std::snprintf(time, sizeof time, "%.17g", e.time);
-    out << "    <DataSet timestep=\"" << time << "\" group=\"\" part=\"0\" file=\""
+    out << "    <DataSet timestep=\"" << format_text("%.17g", e.time) << "\" group=\"\" part=\"0\" file=\""
         << escape_xml_text(e.file) << "\"/>\n";
   }
   out << "  </Collection>\n</VTKFile>\n";

@@ -1,4 +1,5 @@
 #include "io/report_html.hpp"
+#include "core/text_format.hpp"
 #include "io/atomic_file.hpp"
 
 #include "io/input_error.hpp"
@@ -55,11 +56,9 @@ std::string colour(double t) {
   t = std::clamp(std::isfinite(t) ? t : 0.0, 0.0, 1.0) * 4.0;
   const int i = std::min(3, static_cast<int>(t));
   const double f = t - i;
-  char buf[16];
-  std::snprintf(buf, sizeof buf, "#%02x%02x%02x", static_cast<int>(stops[i][0] + f * (stops[i + 1][0] - stops[i][0])),
+  return format_text("#%02x%02x%02x", static_cast<int>(stops[i][0] + f * (stops[i + 1][0] - stops[i][0])),
                 static_cast<int>(stops[i][1] + f * (stops[i + 1][1] - stops[i][1])),
                 static_cast<int>(stops[i][2] + f * (stops[i + 1][2] - stops[i][2])));
-  return buf;
 }
 
 }  // namespace

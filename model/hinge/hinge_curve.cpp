@@ -1,4 +1,5 @@
 #include "model/hinge/hinge_curve.hpp"
+#include "core/text_format.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -10,11 +11,7 @@ namespace rotcap {
 
 namespace {
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.6g", v);
-  return buf;
-}
+std::string num(double v) { return format_text("%.6g", v); }
 
 void require_finite_curve(std::span<const MomentRotationPoint> curve, const char* what) {
   for (std::size_t j = 0; j < curve.size(); ++j)

@@ -1,4 +1,6 @@
 #include "model/hinge_zone/section_grid.hpp"
+#include "core/check.hpp"
+#include "core/text_format.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -10,10 +12,7 @@ namespace rotcap {
 int Stations::at(double xq) const {
   const auto it = std::lower_bound(x.begin(), x.end(), xq - tol);
   if (it == x.end() || std::abs(*it - xq) > tol) {
-    std::ostringstream s;
-    s.precision(8);
-    s << xq;
-    throw std::logic_error("hinge-zone mesher: no station at x = " + s.str());
+    throw InternalError("hinge-zone mesher: no station at x = " + format_text("%.8g", xq));
   }
   return static_cast<int>(it - x.begin());
 }

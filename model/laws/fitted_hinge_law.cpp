@@ -1,4 +1,5 @@
 #include "model/laws/fitted_hinge_law.hpp"
+#include "core/text_format.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -84,13 +85,11 @@ FittedHingeLaw fit_hinge_law(std::span<const MomentRotationPoint> curve, double 
     }
   }
   law.within_bound = law.max_deviation <= o.bound;
-  char buf[256];
-  std::snprintf(buf, sizeof buf,
+  law.message = format_text(
                 "fitted hinge law: %zu points (Douglas-Peucker, tolerance %.3g), largest deviation %.3g %% of M at "
                 "theta_pl = %.3g mrad over %zu curve points (bound %.3g %%: %s)",
                 law.points.size(), o.tolerance, 100.0 * law.max_deviation, 1e3 * law.theta_plastic_at_max_deviation,
                 law.points_checked, 100.0 * o.bound, law.within_bound ? "met" : "NOT met");
-  law.message = buf;
   return law;
 }
 

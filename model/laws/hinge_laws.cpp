@@ -1,4 +1,5 @@
 #include "model/laws/hinge_laws.hpp"
+#include "core/text_format.hpp"
 
 #include "model/setups/loading_setup.hpp"
 
@@ -13,11 +14,7 @@ namespace rotcap {
 
 namespace {
 
-std::string num(double v) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, "%.4g", v);
-  return buf;
-}
+std::string num(double v) { return format_text("%.4g", v); }
 
 }  // namespace
 

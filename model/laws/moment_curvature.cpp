@@ -1,4 +1,5 @@
 #include "model/laws/moment_curvature.hpp"
+#include "core/text_format.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -15,11 +16,7 @@ namespace {
 // S355: that is not strain hardening. Hardening branches of structural steel have E_sh ~ 0.01 E.
 constexpr double kHardeningSlope = 0.005;
 
-std::string num(double v) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, "%.6g", v);
-  return buf;
-}
+std::string num(double v) { return format_text("%.6g", v); }
 
 // Two Gauss points of a strip [z0, z1] in z: z_mid -+ (z1 - z0) / (2 sqrt 3), half the area each.
 void add_strip(std::vector<Fibre>& out, double z0, double z1, double width, double sigma_r) {
@@ -237,19 +234,6 @@ MomentCurvatureCurve moment_curvature(std::span<const Fibre> fibres, const Uniax
               num(c.first_yield_moment / 1e6) + " kNm, M = " + num(c.points.back().moment / 1e6) +
               " kNm at the extreme strain " + num(eps_max);
   return c;
-}
-
-double curvature_at_moment(const MomentCurvatureCurve& curve, double moment) {
-  const auto& p = curve.points;
-  if (moment <= 0.0 || p.size() < 2) return 0.0;
-  if (moment >= p.back().moment) return p.back().kappa;
-  for (std::size_t i = 1; i < p.size(); ++i)
-    if (p[i].moment >= moment) {
-      const double dm = p[i].moment - p[i - 1].moment;
-      if (dm <= 0.0) return p[i - 1].kappa;
-      return p[i - 1].kappa + (p[i].kappa - p[i - 1].kappa) * (moment - p[i - 1].moment) / dm;
-    }
-  return p.back().kappa;
 }
 
 }  // namespace rotcap

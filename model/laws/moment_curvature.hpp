@@ -129,8 +129,4 @@ struct MomentCurvatureCurve {
 MomentCurvatureCurve moment_curvature(std::span<const Fibre> fibres, const UniaxialFibreLaw& law,
                                       const MomentCurvatureOptions& options = {});
 
-/// kappa(M) by linear interpolation in the curve (M non-decreasing; a flat stretch gives its
-/// first kappa). M beyond the curve's last moment: the last kappa. M <= 0: 0.
-double curvature_at_moment(const MomentCurvatureCurve& curve, double moment);
-
 }  // namespace rotcap

@@ -1,4 +1,7 @@
 #include "model/patterns/imperfection.hpp"
+#include "core/check.hpp"
+#include "core/option_error.hpp"
+#include "core/text_format.hpp"
 
 #include "model/setups/loading_setup.hpp"
 
@@ -14,14 +17,10 @@ namespace {
 
 constexpr double kPi = std::numbers::pi;
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.4g", v);
-  return buf;
-}
+std::string num(double v) { return format_text("%.4g", v); }
 
 void require(bool ok, const std::string& key, double value, const std::string& expected) {
-  if (!ok) throw std::invalid_argument(key + " = " + num(value) + ": expected " + expected);
+  if (!ok) throw OptionError(key, num(value), expected);
 }
 
 // Hinge sections x_h where the local wave trains start (header comment; the setup's class).
@@ -50,9 +49,9 @@ struct WaveTrain {
         const double x0 = stations[i], x1 = stations[i + 1];
         const bool touches = x1 > xh - n * lambda && x0 < xh + n * lambda;
         if (touches && x1 - x0 > 0.5 * lambda * (1.0 + 1e-9))
-          throw std::invalid_argument(key + " = " + num(lambda) + " mm: the element from x = " + num(x0) + " to " +
-                                      num(x1) + " mm is longer than half a half-wave (" + num(0.5 * lambda) +
-                                      " mm); refine mesh.aspect or lengthen the half-wave");
+          throw OptionError("mesh.aspect", "an element from x = " + num(x0) + " to " + num(x1) + " mm",
+                            "elements along the member at most half a half-wave of the " + key + " pattern (" +
+                                num(0.5 * lambda) + " mm) near the hinge: a smaller mesh.aspect");
       }
   }
 };
@@ -140,10 +139,9 @@ ModeImperfection buckling_mode_imperfection(const HingeZoneModel& hinge, std::sp
   std::string list;
   for (std::size_t k = 0; k < modes.size(); ++k) {
     const Eigen::VectorXd& phi = modes[k];
-    if (phi.size() != kDofsPerNode * n_nodes)
-      throw std::invalid_argument("buckling-mode imperfection: mode " + std::to_string(k) + " has " +
-                                  std::to_string(phi.size()) + " entries, expected " +
-                                  std::to_string(kDofsPerNode * n_nodes));
+    ROTCAP_CHECK(phi.size() == kDofsPerNode * n_nodes,
+                 "buckling-mode imperfection: mode " + std::to_string(k) + " has " + std::to_string(phi.size()) +
+                     " entries, expected " + std::to_string(kDofsPerNode * n_nodes));
     // Normalise the largest nodal translation to h, so the none threshold is relative.
     double largest = 0.0;
     for (Eigen::Index i = 0; i < n_nodes; ++i) largest = std::max(largest, phi.segment<3>(kDofsPerNode * i).norm());
@@ -179,16 +177,14 @@ ModeImperfection buckling_mode_imperfection(const HingeZoneModel& hinge, std::sp
 }
 
 void add_offsets(ShellModel& model, const NodeOffsets& offsets) {
-  if (offsets.size() != model.nodes.size())
-    throw std::invalid_argument("add_offsets: " + std::to_string(offsets.size()) + " offsets for " +
-                                std::to_string(model.nodes.size()) + " nodes");
+  ROTCAP_CHECK(offsets.size() == model.nodes.size(),
+               std::to_string(offsets.size()) + " offsets for " + std::to_string(model.nodes.size()) + " nodes");
   for (std::size_t i = 0; i < offsets.size(); ++i) model.nodes[i] += offsets[i];
 }
 
 NodeOffsets combine(const NodeOffsets& a, const NodeOffsets& b) {
-  if (a.size() != b.size())
-    throw std::invalid_argument("combine: offset fields of " + std::to_string(a.size()) + " and " +
-                                std::to_string(b.size()) + " nodes");
+  ROTCAP_CHECK(a.size() == b.size(),
+               "offset fields of " + std::to_string(a.size()) + " and " + std::to_string(b.size()) + " nodes");
   NodeOffsets out(a.size());
   for (std::size_t i = 0; i < a.size(); ++i) out[i] = a[i] + b[i];
   return out;

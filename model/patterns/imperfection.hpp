@@ -68,7 +68,7 @@ struct GlobalBowOptions {
   BowShape shape = BowShape::half_sine;
 };
 
-/// Lateral bow. Throws std::invalid_argument for a bad amplitude ("imperfection.global_amplitude").
+/// Lateral bow. Throws OptionError for a bad amplitude ("imperfection.global_amplitude").
 NodeOffsets global_bow(const HingeZoneModel& hinge, const GlobalBowOptions& options);
 
 enum class ImperfectFlange { compression, top, bottom, both, none };
@@ -84,9 +84,9 @@ struct HalfSineOptions {
   int half_waves = 3;                      ///< n >= 1 each side of a hinge section
 };
 
-/// Analytical local pattern. Throws std::invalid_argument naming the option ("imperfection.*"
-/// keys for amplitudes) for a negative amplitude, a half-wave <= 0, n < 1, or elements along x
-/// longer than lambda / 2 near a hinge section.
+/// Analytical local pattern. Throws OptionError naming the option ("imperfection.*" keys for
+/// amplitudes) for a negative amplitude, a half-wave <= 0, n < 1, or ("mesh.aspect") elements along
+/// x longer than lambda / 2 near a hinge section.
 NodeOffsets half_sine_imperfection(const HingeZoneModel& hinge, const HalfSineOptions& options);
 
 struct ModeImperfectionOptions {
@@ -106,15 +106,15 @@ struct ModeImperfection {
 };
 
 /// modes: full displacement vectors (6 per node, size dof_count()), lowest load factor first.
-/// Throws std::invalid_argument for a bad amplitude or a vector of the wrong size; a mode that is
-/// zero is classified none.
+/// Throws OptionError for a bad amplitude, InternalError for a vector of the wrong size; a mode that
+/// is zero is classified none.
 ModeImperfection buckling_mode_imperfection(const HingeZoneModel& hinge, std::span<const Eigen::VectorXd> modes,
                                             const ModeImperfectionOptions& options);
 
-/// model.nodes[i] += offsets[i]. Throws std::invalid_argument when the sizes differ.
+/// model.nodes[i] += offsets[i]. InternalError when the sizes differ.
 void add_offsets(ShellModel& model, const NodeOffsets& offsets);
 
-/// Sum of two offset fields of the same size (std::invalid_argument otherwise).
+/// Sum of two offset fields of the same size (InternalError otherwise).
 NodeOffsets combine(const NodeOffsets& a, const NodeOffsets& b);
 
 }  // namespace rotcap

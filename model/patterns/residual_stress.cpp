@@ -1,4 +1,5 @@
 #include "model/patterns/residual_stress.hpp"
+#include "core/text_format.hpp"
 
 #include "materials/steel_curve.hpp"
 
@@ -13,11 +14,7 @@ namespace {
 
 constexpr double kHotRolledSwitch = 1.2;  // h/b above which the ECCS amplitude is 0.3 fy
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.6g", v);
-  return buf;
-}
+std::string num(double v) { return format_text("%.6g", v); }
 
 // Closed-form moments of a quadratic piece: int_{s0}^{s1} (c0 + c1 s + c2 s^2) s^k ds, k = 0, 1, 2.
 struct PieceMoments {

@@ -1,4 +1,5 @@
 #include "model/patterns/section_deformation.hpp"
+#include "core/text_format.hpp"
 
 #include <Eigen/LU>
 #include <algorithm>
@@ -12,11 +13,7 @@ namespace {
 
 using Mat36 = Eigen::Matrix<double, 3, 6>;
 
-std::string num(double v) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.4g", v);
-  return buf;
-}
+std::string num(double v) { return format_text("%.4g", v); }
 
 // Rigid small displacement of a point at r from the centre: u = U + theta x r = A q with
 // A = [I, -[r]x], q = (U, theta).

@@ -1,4 +1,5 @@
 #include "model/section/section_class.hpp"
+#include "core/text_format.hpp"
 
 #include "materials/steel_curve.hpp"
 
@@ -12,12 +13,7 @@ namespace rotcap {
 
 namespace {
 
-std::string num(double v) {
-  std::ostringstream s;
-  s.precision(6);
-  s << v;
-  return s.str();
-}
+std::string num(double v) { return format_text("%.6g", v); }
 
 // Class of a part from its c/t and the three limits (EN 1993-1-1 5.5.2(6): the lowest class
 // whose limit is met; Class 4 beyond the Class-3 limit).

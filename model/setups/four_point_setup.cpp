@@ -1,4 +1,5 @@
 #include "model/setups/four_point_setup.hpp"
+#include "core/text_format.hpp"
 
 #include "model/setups/end_bearings.hpp"
 
@@ -45,9 +46,7 @@ double FourPointSetup::beam_theory_rotation_at_mp(const HingeZoneModel& m, doubl
 
 RotationIntegral FourPointSetup::rotation_integral(double L, double a) const {
   if (!(a > 0.0) || a > 0.5 * L) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%.4g", a);
-    throw std::invalid_argument(std::string("shear span ") + buf + " mm: expected 0 < a <= L/2");
+    throw std::invalid_argument("shear span " + format_text("%.4g", a) + " mm: expected 0 < a <= L/2");
   }
   return {2.0 * a, L - 2.0 * a};
 }

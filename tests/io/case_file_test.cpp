@@ -11,6 +11,7 @@ namespace rotcap {
 namespace {
 
 using testing::data_file;
+using testing::expect_input_error;
 
 // A general case whose mesh is the test plate (relative to tests/data, like a case file there).
 CaseInput general_case(const std::string& body) {
@@ -213,6 +214,54 @@ TEST(CaseEcho, EchoesTheInputsWithDefaults) {
   EXPECT_EQ(m["analysis"]["monitor"][1]["dof"], "ry");
   EXPECT_EQ(m["imperfection"]["global_amplitude"], 0.0);
   EXPECT_FALSE(m.contains("section"));
+}
+
+TEST(CaseEcho, ReadsItsOwnEchoBackToTheSameCase) {
+  // `rotcap report` rebuilds the case from summary.json's echo with the case-file reader itself.
+  for (const char* file : {"io_cantilever.toml", "io_two_region_plate.toml"}) {
+    const CaseInput c = read_case_file(data_file(file));
+    const nlohmann::json echo = to_json(c);
+    const CaseInput back = case_from_echo(echo, data_file("summary.json"));
+    EXPECT_EQ(to_json(back), echo) << file;
+  }
+  const CaseInput named = parse_case_text(
+      "[section]\ndesignation = \"HEB 300\"\n[steel]\nfy = 355\nfu = 490\n[member]\nsetup = \"four_point\"\n"
+      "length = 3000\nload_spacing = 1000\n",
+      data_file("inline.toml"));
+  const nlohmann::json echo = to_json(named);
+  EXPECT_EQ(echo["section"]["depth"], 300.0);  // the echo shows the table's dimensions
+  const CaseInput back = case_from_echo(echo, data_file("summary.json"));
+  EXPECT_EQ(back.zone.section.designation, "HEB 300");
+  EXPECT_EQ(back.zone.load_spacing, 1000.0);
+  EXPECT_EQ(to_json(back), echo);
+}
+
+TEST(CaseFile, EchoShowsOnlyTheSteelKeysTheCurveUses) {
+  const nlohmann::json g = to_json(general_case(""));
+  EXPECT_FALSE(g["steel"].contains("fy"));  // elastic: no yield strength
+  EXPECT_FALSE(g["steel"].contains("fu"));
+  const CaseInput t = parse_case_text(
+      "[model]\nmesh = \"io_two_region_plate.msh\"\nthickness = 8.0\n"
+      "[[support]]\ngroup = \"clamped\"\nfix = [\"ux\", \"uy\", \"uz\"]\n"
+      "[[load]]\ngroup = \"tip\"\nforce = [0.0, 0.0, -1.0]\n"
+      "[steel]\ncurve = \"table\"\ntable = [[300.0, 0.0], [400.0, 0.1]]\n",
+      data_file("inline_general.toml"));
+  EXPECT_EQ(t.steel.fy, 300.0);  // a table without fy: its first stress
+  EXPECT_FALSE(to_json(t)["steel"].contains("fu"));
+}
+
+TEST(CaseFile, OwnersValidateTheirOptionsAndTheErrorNamesTheKeysLine) {
+  const std::string base(kMinimalGenerated);
+  // PathOptions::validate (solver/path), at the line of analysis.first_step.
+  expect_input_error([&] { parse_case_text(base + "[analysis]\nfirst_step = -1\n", data_file("a.toml")); },
+                     {"a.toml:14: analysis.first_step: found -1"});
+  // SteelModel validate (materials): nu of a steel, 0 <= nu < 0.5.
+  std::string with_nu = base;
+  with_nu.replace(with_nu.find("fu = 490"), 8, "fu = 490\nnu = -0.1");
+  expect_input_error([&] { parse_case_text(with_nu, data_file("b.toml")); }, {"b.toml:10: steel.nu: found -0.1"});
+  // HingeZoneSpec validate (model): stiffener positions in order, each at its own line.
+  expect_input_error([&] { parse_case_text(base + "stiffeners = [\n  500,\n  400,\n]\n", data_file("c.toml")); },
+                     {"c.toml:15: member.stiffeners[1]: found 400 mm; expected strictly increasing"});
 }
 
 }  // namespace

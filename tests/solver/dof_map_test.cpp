@@ -58,5 +58,24 @@ TEST(DofMap, RejectsSupportOnMissingGroup) {
   EXPECT_THROW(DofMap map(m), std::invalid_argument);
 }
 
+TEST(DofCombination, GroupMeanAndItsFreeDofWeights) {
+  // A 2 x 1 plate: group "tip" holds two nodes; one of them has uz held by a support.
+  ShellModel m = rectangular_plate(100.0, 50.0, 2, 1, 5.0);
+  m.groups["tip"].nodes = {1, 2};
+  m.groups["pin"].nodes = {2};
+  m.supports.push_back(support("pin", {"uz"}));
+  const DofCombination mean = group_mean(m, "tip", Dof::uz);
+  Eigen::VectorXd u = Eigen::VectorXd::Zero(m.dof_count());
+  u[kDofsPerNode * 1 + 2] = 3.0;
+  u[kDofsPerNode * 2 + 2] = 1.0;
+  EXPECT_EQ(mean.value(u), 2.0);
+  const DofMap dofs(m);
+  int held = -1;
+  const Eigen::VectorXd c = free_dof_weights(mean, dofs, &held);
+  EXPECT_EQ(held, 1);
+  EXPECT_EQ(c.sum(), 0.5);
+  EXPECT_EQ(c[dofs.equation(1, Dof::uz)], 0.5);
+}
+
 }  // namespace
 }  // namespace rotcap

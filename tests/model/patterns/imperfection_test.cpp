@@ -1,6 +1,7 @@
 // Imperfections of hinge-zone models: the global bow, the analytical half-sine local pattern
 // (amplitudes, shapes, the compression flange, compatibility at shared nodes) and the choice and
 // scaling of a local buckling mode.
+#include "core/check.hpp"
 #include "model/patterns/imperfection.hpp"
 #include "tests/model/patterns/pattern_fields.hpp"
 #include "tests/test_support.hpp"
@@ -262,7 +263,7 @@ TEST(BucklingModeImperfection, ReportsWhenNoModeIsLocal) {
                                                              DeformationMode::none}));
   EXPECT_NE(r.message.find("no local mode among the 3 modes"), std::string::npos) << r.message;
   const std::vector<Eigen::VectorXd> wrong{Eigen::VectorXd::Zero(7)};
-  EXPECT_THROW(buckling_mode_imperfection(h, wrong, o), std::invalid_argument);
+  EXPECT_THROW(buckling_mode_imperfection(h, wrong, o), InternalError);
 }
 
 TEST(Offsets, AddAndCombine) {
@@ -275,8 +276,8 @@ TEST(Offsets, AddAndCombine) {
   const std::vector<Eigen::Vector3d> before = h.model.nodes;
   add_offsets(h.model, both);
   for (std::size_t i = 0; i < before.size(); ++i) EXPECT_EQ(h.model.nodes[i], before[i] + bow[i] + local[i]);
-  EXPECT_THROW(add_offsets(h.model, NodeOffsets(3)), std::invalid_argument);
-  EXPECT_THROW(combine(bow, NodeOffsets(3)), std::invalid_argument);
+  EXPECT_THROW(add_offsets(h.model, NodeOffsets(3)), InternalError);  // programming errors
+  EXPECT_THROW(combine(bow, NodeOffsets(3)), InternalError);
 }
 
 }  // namespace
