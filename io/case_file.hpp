@@ -6,7 +6,10 @@
 // key); a wrong type names the type found and expected; a value outside its limits names the
 // limit; a key that does not apply to the chosen option (e.g. steel.table with curve =
 // "bilinear", analysis.monitor in a generated model) is an error rather than silently ignored.
-// All errors are InputError ("file:line: key: found ...; expected ...").
+// All errors are InputError ("file:line: key: found ...; expected ..."). Which keys a table takes
+// is checked here; the values of the keys a component owns are checked by that component right
+// after parsing (SteelModel, ISection, HingeZoneSpec with its LoadingSetup, PathOptions,
+// LayeredShellSection::Options: their validate() throws OptionError, placed here at the key's line).
 // A case is either generated ([section] + [member]) or general ([model] with a Gmsh mesh), never
 // both. Integers are accepted where numbers are expected.
 //
@@ -25,6 +28,7 @@
 //         curve               "elastic" | "elastic_plastic" | "bilinear" | "quadlinear" | "table"
 //                                                                 "quadlinear"
 //         fy                  number; required for generated models and every curve but elastic
+//                             and table (a table without fy: its first stress)
 //                                                                 -              fy > 0
 //         fu                  number; required for bilinear and quadlinear
 //                                                                 -              fu >= fy (bilinear: >)

@@ -12,9 +12,7 @@ const std::string kSteelCurve[] = {
     steel_curve_kind_name(SteelCurveKind::elastic), steel_curve_kind_name(SteelCurveKind::elastic_plastic),
     steel_curve_kind_name(SteelCurveKind::bilinear), steel_curve_kind_name(SteelCurveKind::quadlinear),
     steel_curve_kind_name(SteelCurveKind::table)};
-// The setups' spellings are their classes' own (LoadingSetup::name()).
-const std::string kSetup[] = {loading_setup(HingeSetup::cantilever).name(), loading_setup(HingeSetup::three_point).name(),
-                              loading_setup(HingeSetup::four_point).name(), loading_setup(HingeSetup::uniform_moment).name()};
+
 const std::string kStiffenerPlacement[] = {"supports_and_loads", "none", "positions"};
 const std::string kCantileverSupport[] = {"fixed", "symmetry"};
 const std::string kRestrainedFlange[] = {"both", "top", "bottom"};
@@ -26,7 +24,15 @@ const std::string kArcLengthForm[] = {"cylindrical", "normal_plane"};
 
 template <> std::span<const std::string> enum_names<ModelKind>() { return kModelKind; }
 template <> std::span<const std::string> enum_names<SteelCurveKind>() { return kSteelCurve; }
-template <> std::span<const std::string> enum_names<HingeSetup>() { return kSetup; }
+template <> std::span<const std::string> enum_names<HingeSetup>() {
+  // The setups' spellings are their classes' own (LoadingSetup::name()), in enum order.
+  static const std::vector<std::string> names = [] {
+    std::vector<std::string> n;
+    for (int i = 0; i < kHingeSetupCount; ++i) n.emplace_back(loading_setup(static_cast<HingeSetup>(i)).name());
+    return n;
+  }();
+  return names;
+}
 template <> std::span<const std::string> enum_names<StiffenerPlacement>() { return kStiffenerPlacement; }
 template <> std::span<const std::string> enum_names<CantileverSupport>() { return kCantileverSupport; }
 template <> std::span<const std::string> enum_names<RestrainedFlange>() { return kRestrainedFlange; }

@@ -1,4 +1,5 @@
 #include "materials/hardening_curve.hpp"
+#include "core/text_format.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -10,11 +11,7 @@ namespace rotcap {
 namespace {
 
 std::string describe(std::size_t i, const HardeningCurve::Point& p) {
-  std::ostringstream s;
-  s.precision(10);
-  s << "point " << i << " (plastic strain " << p.plastic_strain << ", stress " << p.stress
-    << " MPa)";
-  return s.str();
+  return format_text("point %zu (plastic strain %.10g, stress %.10g MPa)", i, p.plastic_strain, p.stress);
 }
 
 }  // namespace

@@ -161,11 +161,9 @@ PathSummary PathFollower::run(const Observer& observer, double lambda0) {
       size *= 0.5;
       if (size < floor) {
         summary.status = PathStatus::StepTooSmall;
-        std::ostringstream m;
-        m << "no convergence at step " << record.step << " after " << cutbacks
-          << " cut-backs: step size " << size << " < floor " << floor << " (min_step_ratio "
-          << options_.min_step_ratio << " x first step " << first << ")";
-        summary.message = m.str();
+        summary.message = format_text(
+            "no convergence at step %d after %d cut-backs: step size %g < floor %g (min_step_ratio %g x first step %g)",
+            record.step, cutbacks, size, floor, options_.min_step_ratio, first);
         summary.load_factor = lambda_;
         return summary;
       }
