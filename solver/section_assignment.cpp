@@ -10,32 +10,32 @@
 
 namespace rotcap {
 
-SectionAssignment SectionAssignment::elastic(const ShellModel& model, double E, double nu) {
+namespace {
+
+/// One section per distinct element thickness (exact equality of the doubles), made by make(t).
+template <class Make>
+SectionAssignment one_per_thickness(const ShellModel& model, Make make) {
   SectionAssignment out;
   std::map<double, int> by_thickness;
   for (int e = 0; e < model.element_count(); ++e) {
     const double t = model.elements[e].thickness;
     auto it = by_thickness.find(t);
-    if (it == by_thickness.end())
-      it = by_thickness.emplace(t, out.add_section(std::make_unique<ElasticShellSection>(E, nu, t))).first;
+    if (it == by_thickness.end()) it = by_thickness.emplace(t, out.add_section(make(t))).first;
     out.assign(e, it->second);
   }
   return out;
 }
 
+}  // namespace
+
+SectionAssignment SectionAssignment::elastic(const ShellModel& model, double E, double nu) {
+  return one_per_thickness(model, [&](double t) { return std::make_shared<const ElasticShellSection>(E, nu, t); });
+}
+
 SectionAssignment SectionAssignment::for_steel(const ShellModel& model, const SteelModel& steel,
                                                 const LayeredShellSection::Options& layers, bool elastic_only) {
   if (elastic_only || !has_yield(steel)) return elastic(model, steel.E, steel.nu);
-  SectionAssignment out;
-  std::map<double, int> by_thickness;
-  for (int e = 0; e < model.element_count(); ++e) {
-    const double t = model.elements[e].thickness;
-    auto it = by_thickness.find(t);
-    if (it == by_thickness.end())
-      it = by_thickness.emplace(t, out.add_section(make_shell_section(steel, t, layers.layers))).first;
-    out.assign(e, it->second);
-  }
-  return out;
+  return one_per_thickness(model, [&](double t) { return make_shell_section(steel, t, layers.layers); });
 }
 
 int SectionAssignment::add_section(std::shared_ptr<const ShellSection> section) {
