@@ -10,7 +10,7 @@ namespace rotcap::app {
 
 int command_demo(const CommandOptions& options) {
   namespace fs = std::filesystem;
-  const fs::path folder = options.output.value_or("rotcap_demo.out");
+  const fs::path folder = options.output.value_or(kDemoFolder);
   if (fs::exists(folder) && !options.overwrite)
     throw InputError(folder, 0, "-o", "an existing output folder " + folder.string(),
                      "a new folder, or --overwrite to replace its results");

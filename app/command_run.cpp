@@ -7,11 +7,22 @@
 #include "io/input_error.hpp"
 #include "app/output_folder.hpp"
 
+#include <ctime>
+
 namespace rotcap::app {
 
 const char* const kCaution =
     "rotcap results support, and never replace, the design of a structure to the governing code by a "
     "qualified engineer; check them against local codes and licensed practice.";
+
+nlohmann::json program_json() {
+  const std::time_t now = std::time(nullptr);
+  std::tm utc{};
+  gmtime_r(&now, &utc);
+  char date[32];
+  std::strftime(date, sizeof date, "%Y-%m-%dT%H:%M:%SZ", &utc);
+  return {{"name", "rotcap"}, {"version", ROTCAP_VERSION}, {"run_date", date}};
+}
 
 int command_run(const CommandOptions& options) {
   // 1. Read, validate and build the model before anything is written.

@@ -1,6 +1,8 @@
 #pragma once
 // The commands of the rotcap command line. Each returns the process exit code:
 //   0 done; 2 bad input (InputError); 3 stopped early with partial results kept; 1 internal error.
+#include <nlohmann/json.hpp>
+
 #include <filesystem>
 #include <optional>
 #include <string>
@@ -12,6 +14,12 @@ constexpr int kExitInternal = 1;
 constexpr int kExitBadInput = 2;
 constexpr int kExitStoppedEarly = 3;
 
+/// The demo's default results folder (in the working directory).
+inline constexpr const char* kDemoFolder = "rotcap_demo_results";
+
+/// {"name": "rotcap", "version": ..., "run_date": "YYYY-MM-DDThh:mm:ssZ" (UTC, now)} for summary.json.
+nlohmann::json program_json();
+
 /// The caution every report carries.
 extern const char* const kCaution;
 
@@ -21,13 +29,13 @@ struct CommandOptions {
   bool overwrite = false;
   bool quiet = false;
   int threads = 0;                              ///< 0: OpenMP default
-  std::optional<int> modes;                     ///< buckle -n
+  std::optional<int> modes;                     ///< buckling -n
   std::optional<double> mesh_scale;             ///< --mesh-scale (generated models only)
 };
 
 int command_check(const CommandOptions& options);
 int command_run(const CommandOptions& options);
-int command_buckle(const CommandOptions& options);
+int command_buckling(const CommandOptions& options);
 /// Writes the bundled demo case into the output folder and runs it.
 int command_demo(const CommandOptions& options);
 /// Re-makes curve.svg, the law comparison, hinge_law.csv and report.html of a results folder

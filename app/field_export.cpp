@@ -14,7 +14,7 @@ double von_mises(const Eigen::Vector3d& s) {
 }  // namespace
 
 void write_shell_fields(const std::filesystem::path& vtu, const ShellModel& model, const Eigen::VectorXd& u,
-                        const ElementResults& results) {
+                        const ElementResults& results, std::span<const VtkField> field_data) {
   const int n = model.node_count();
   const int m = model.element_count();
   VtkField disp{"displacement", 3, std::vector<double>(3 * n)};
@@ -58,7 +58,7 @@ void write_shell_fields(const std::filesystem::path& vtu, const ShellModel& mode
   cells.push_back(std::move(thickness));
   cells.push_back(std::move(region));
   const std::vector<VtkField> points{std::move(disp), std::move(rot)};
-  write_vtu(vtu, model.nodes, quads, points, cells);
+  write_vtu(vtu, model.nodes, quads, points, cells, field_data);
 }
 
 }  // namespace rotcap::app

@@ -31,7 +31,7 @@ double group_mean(const ShellModel& model, const GroupDof& g, const Eigen::Vecto
 
 std::vector<std::string> curve_columns(const CaseInput& input) {
   std::vector<std::string> c{"step", "load_factor"};
-  for (const GroupDof& m : input.analysis.monitor) c.push_back(std::string(dof_name(m.dof)) + "@" + m.group);
+  for (const GroupDof& m : input.analysis.record_dofs) c.push_back(std::string(dof_name(m.dof)) + "@" + m.group);
   c.insert(c.end(), {"max_plastic_strain", "iterations", "negative_pivots"});
   return c;
 }
@@ -61,7 +61,8 @@ int run_general_linear(const CaseInput& input, const ShellModel& model, const fs
            std::to_string(model.element_count()) + " shells");
   const LinearStaticResult result = solve_linear_static(model, sections, options);
   RunRecorder recorder(folder, curve_columns(input), input.output.fields_every);
-  nlohmann::json summary{{"title", input.title}, {"input", to_json(input)}, {"caution", kCaution}};
+  nlohmann::json summary{{"title", input.title}, {"program", program_json()}, {"input", to_json(input)},
+                         {"caution", kCaution}};
   summary["model"] = model_size(model, result.statistics.free_dofs);
   if (!result.ok()) {
     summary["stop_reason"] = linear_static_status_name(result.status);
@@ -74,7 +75,7 @@ int run_general_linear(const CaseInput& input, const ShellModel& model, const fs
   for (int step = 0; step <= 1; ++step) {
     const Eigen::VectorXd& u = step == 0 ? zero : result.displacements;
     std::vector<double> row{double(step), double(step)};
-    for (const GroupDof& m : input.analysis.monitor) row.push_back(group_mean(model, m, u));
+    for (const GroupDof& m : input.analysis.record_dofs) row.push_back(group_mean(model, m, u));
     row.insert(row.end(), {0.0, double(step), 0.0});
     recorder.add_row(row);
   }
@@ -86,9 +87,9 @@ int run_general_linear(const CaseInput& input, const ShellModel& model, const fs
     max_translation = std::max(max_translation, result.displacements.segment<3>(kDofsPerNode * n).norm());
   summary["stop_reason"] = "completed";
   summary["max_translation_mm"] = max_translation;
-  summary["monitors"] = nlohmann::json::object();
-  for (const GroupDof& m : input.analysis.monitor)
-    summary["monitors"][std::string(dof_name(m.dof)) + "@" + m.group] = group_mean(model, m, result.displacements);
+  summary["recorded_dofs"] = nlohmann::json::object();
+  for (const GroupDof& m : input.analysis.record_dofs)
+    summary["recorded_dofs"][std::string(dof_name(m.dof)) + "@" + m.group] = group_mean(model, m, result.displacements);
   summary["residual_relative"] = result.backward_error;
   summary["solver"] = {{"factor_nonzeros", s.factor_nonzeros}, {"assembly_s", s.assembly_seconds},
                        {"analysis_s", s.analysis_seconds}, {"factorisation_s", s.factorization_seconds},
@@ -131,27 +132,28 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   const Eigen::VectorXd zero = Eigen::VectorXd::Zero(model.dof_count());
   {
     std::vector<double> row{0.0, 0.0};
-    for (std::size_t i = 0; i < a.monitor.size(); ++i) row.push_back(0.0);
+    for (std::size_t i = 0; i < a.record_dofs.size(); ++i) row.push_back(0.0);
     row.insert(row.end(), {0.0, 0.0, 0.0});
     recorder.add_row(row);
     recorder.write_fields(0, 0.0, model, zero, ElementResults{});
   }
-  nlohmann::json summary{{"title", input.title}, {"input", to_json(input)}, {"caution", kCaution}};
+  nlohmann::json summary{{"title", input.title}, {"program", program_json()}, {"input", to_json(input)},
+                         {"caution", kCaution}};
   summary["model"] = model_size(model, problem.size());
   double lambda_max = 0.0;
   // 3. Each converged step: a curve row, a progress line, the stop criteria.
   auto on_step = [&](const ConvergedStep& step, const Eigen::VectorXd& u) {
     StepRecord record;
     record.row = {double(step.step), step.load_factor};
-    std::string monitors;
-    for (const GroupDof& m : a.monitor) {
+    std::string recorded;
+    for (const GroupDof& m : a.record_dofs) {
       record.row.push_back(group_mean(model, m, u));
-      monitors += format_text("  %s@%s %.5g", dof_name(m.dof), m.group.c_str(), record.row.back());
+      recorded += format_text("  %s@%s %.5g", dof_name(m.dof), m.group.c_str(), record.row.back());
     }
     record.row.insert(record.row.end(),
                       {problem.max_plastic_strain(), double(step.iterations), double(step.negative_pivots)});
     record.progress = format_text("step %4d  load factor %.6g%s  iterations %d  negative pivots %d%s", step.step,
-                                  step.load_factor, monitors.c_str(), step.iterations, step.negative_pivots,
+                                  step.load_factor, recorded.c_str(), step.iterations, step.negative_pivots,
                                   step.cutbacks ? ("  (" + std::to_string(step.cutbacks) + " cut-backs)").c_str() : "");
     const bool peak_passed = step.load_factor < lambda_max;
     lambda_max = std::max(lambda_max, step.load_factor);

@@ -58,7 +58,8 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   const auto t_start = std::chrono::steady_clock::now();
   const HingeZoneModel& zone = hinge.zone;
   const double mp = zone.plastic_moment;
-  nlohmann::json summary{{"title", input.title}, {"input", to_json(input)}, {"caution", kCaution}};
+  nlohmann::json summary{{"title", input.title}, {"program", program_json()}, {"input", to_json(input)},
+                         {"caution", kCaution}};
   // 1. Imperfections on a copy of the perfect model.
   ShellModel model = zone.model;
   const StageReport imperfection = apply_imperfections(input, hinge, model, threads);
@@ -69,6 +70,9 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   ShellProblemOptions po;
   po.threads = threads;
   ShellProblem problem(model, sections, po);
+  summary["mesh"] = {{"nodes", model.node_count()}, {"elements", model.element_count()},
+                     {"free_dofs", problem.size()}, {"flange_elements", input.zone.flange_elements},
+                     {"web_elements", input.zone.web_elements}, {"layers", input.layers.layers}};
   const Eigen::VectorXd bending = reference_load_vector(model);
   const StageReport residual = apply_residual_stresses(input, hinge, problem);
   for (const auto& l : residual.log) log_info(l);
@@ -138,7 +142,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   const Eigen::VectorXd u_end = problem.displacements();
   const HingeCurveResult extraction = extract_hinge_results(hinge, curve);
   const FailureMode failure = classify_failure(hinge, curve, extraction, u_peak, u_end);
-  const StageReport results = hinge_results_report(hinge, extraction, failure);
+  const StageReport results = hinge_results_report(hinge, extraction, failure, input.demand, input.residual_stress);
   for (const auto& l : results.log) log_info(l);
   summary.update(results.json);
   const std::vector<MomentRotationPoint> points = moment_rotation_points(curve);

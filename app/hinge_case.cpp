@@ -17,6 +17,7 @@ HingeCase build_hinge_case(const CaseInput& input) {
   hc.mel = elastic_moment(hc.zone.plate, fy);
   hc.mp_real = plastic_moment(hc.real, fy);
   hc.theta_p_beam = beam_theory_rotation_at_mp(hc.zone, input.steel.E);
+  hc.theta_p_shear = shear_rotation_at_mp(hc.zone, input.steel.E, input.steel.nu);
   // Derived data, as `check` prints it.
   auto& d = hc.description;
   const SectionProperties& p = hc.zone.plate;
@@ -45,7 +46,8 @@ HingeCase build_hinge_case(const CaseInput& input) {
                      c.web.limits[0], c.web.limits[1]) +
               format_text("%.2f", c.web.limits[2]) + (c.axial_ratio > 0 ? "; bending and compression)" : "; bending)"));
   d.push_back(format_text("  section class %.0f", double(c.section_class)));
-  d.push_back(format_text("theta_p (beam theory, rotation at Mp): %.3f mrad", 1e3 * hc.theta_p_beam));
+  d.push_back(format_text("theta_p (beam theory, rotation at Mp): %.3f mrad; with shear deformation %.3f mrad",
+                          1e3 * hc.theta_p_beam, 1e3 * (hc.theta_p_beam + hc.theta_p_shear)));
   d.push_back(format_text("hinge-region element length %.1f mm; %.0f node lines along the member", hc.zone.hinge_element_length,
                      static_cast<double>(hc.zone.stations.size())));
   return hc;

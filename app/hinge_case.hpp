@@ -20,7 +20,8 @@ struct HingeCase {
   SectionClassification classification;
   double mel = 0.0;                 ///< fy Wel,y of the plate model [N mm]
   double mp_real = 0.0;             ///< fy Wpl,y of the real section [N mm]
-  double theta_p_beam = 0.0;        ///< beam-theory rotation at Mp [rad]
+  double theta_p_beam = 0.0;        ///< beam-theory rotation at Mp [rad] (bending only)
+  double theta_p_shear = 0.0;       ///< what shear deformation adds to it (Timoshenko) [rad]
   std::vector<std::string> description;
 };
 

@@ -5,6 +5,10 @@
 #include "app/hinge_case.hpp"
 #include "app/hinge_stages.hpp"
 #include "model/hinge/hinge_curve.hpp"
+#include "model/hinge/rotation_demand.hpp"
+#include "model/patterns/residual_stress.hpp"
+
+#include <optional>
 
 #include <Eigen/Core>
 
@@ -40,9 +44,11 @@ FailureMode classify_failure(const HingeCase& hinge, const std::vector<HingePoin
                              const HingeCurveResult& extraction, const Eigen::VectorXd& u_peak,
                              const Eigen::VectorXd& u_end);
 
-/// summary.json's result keys (mp_kNm, m_max_kNm, theta_p_mrad, rotation_capacity, failure_mode, ...)
-/// and the results table for the log.
+/// summary.json's result keys (mp_kNm, m_max_kNm, theta_p_mrad, rotation_capacity, failure_mode, ...;
+/// both R, with the computed and with the beam-theory theta_p, and why they differ; the available
+/// plastic rotation; the demand's verdict when the case has one) and the results table for the log.
 StageReport hinge_results_report(const HingeCase& hinge, const HingeCurveResult& extraction,
-                                 const FailureMode& failure);
+                                 const FailureMode& failure, const std::optional<RotationDemand>& demand,
+                                 ResidualStressKind residual_stress);
 
 }  // namespace rotcap::app

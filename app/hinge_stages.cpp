@@ -54,6 +54,7 @@ StageReport apply_imperfections(const CaseInput& input, const HingeCase& hinge, 
       report.json["mode_load_factor"] = b.load_factors[picked.mode];
       report.json["mode_classification"] = deformation_mode_name(picked.classification);
       report.json["local_amplitude_mm"] = amplitude;
+      report.json["buckle_x_mm"] = picked.distortion_x;
       report.log.push_back(format_text("imperfection: buckling mode %.0f (load factor %.4g) scaled to %.3g mm", picked.mode + 1.0,
                                b.load_factors[picked.mode], amplitude));
     } else {

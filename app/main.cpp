@@ -17,13 +17,18 @@ namespace {
 void add_common(CLI::App* cmd, rotcap::app::CommandOptions& o, bool with_case, bool with_output) {
   if (with_case) cmd->add_option("CASE", o.case_file, "case file (TOML)")->required();
   if (with_output) {
-    cmd->add_option("-o,--output", o.output, "output folder (default: <case stem>.out next to the case file)");
+    cmd->add_option("-o,--output", o.output,
+                    with_case ? "output folder (default: <case stem>_results next to the case file)"
+                              : std::string("output folder (default: ") + rotcap::app::kDemoFolder +
+                                    " in the working directory)");
     cmd->add_flag("--overwrite", o.overwrite, "replace the results in an existing output folder");
   }
   if (with_case || with_output)
     cmd->add_option("--mesh-scale", o.mesh_scale,
-                    "multiply [mesh] flange_elements and web_elements of a generated model by this factor "
-                    "(mesh study; flange rounded to even, both >= 4)")
+                    with_case ? "multiply [mesh] flange_elements and web_elements of a generated model by this "
+                                "factor (mesh study; flange rounded to even, both >= 4)"
+                              : "multiply the demo girder's mesh (18 x 23 elements across the flange and over the "
+                                "web) by this factor (mesh study; flange rounded to even, both >= 4)")
         ->check(CLI::Range(0.25, 4.0));
   cmd->add_option("--threads", o.threads, "OpenMP threads for element loops (0: all cores)")->check(CLI::NonNegativeNumber);
   cmd->add_flag("--quiet", o.quiet, "print warnings and errors only");
@@ -36,17 +41,17 @@ int main(int argc, char** argv) {
   // 1. Parse the command line.
   CLI::App cli{"rotcap: moment-rotation curves and rotation capacity of steel I-beam plastic hinges by "
                "nonlinear shell analysis (units: mm, N, MPa, rad)"};
-  cli.set_version_flag("--version", "rotcap 0.1.0");
+  cli.set_version_flag("--version", std::string("rotcap ") + ROTCAP_VERSION);
   cli.require_subcommand(1);
   CommandOptions o;
   CLI::App* run = cli.add_subcommand("run", "full analysis of a case");
   add_common(run, o, true, true);
   CLI::App* check = cli.add_subcommand("check", "validate a case and print its derived data");
   add_common(check, o, true, false);
-  CLI::App* buckle = cli.add_subcommand("buckle", "linear buckling load factors and mode shapes");
-  add_common(buckle, o, true, true);
-  buckle->add_option("-n,--modes", o.modes, "number of lowest positive load factors");
-  CLI::App* demo = cli.add_subcommand("demo", "run the bundled demo case end to end");
+  CLI::App* buckling = cli.add_subcommand("buckling", "linear buckling load factors and mode shapes");
+  add_common(buckling, o, true, true);
+  buckling->add_option("-n,--modes", o.modes, "number of lowest positive load factors");
+  CLI::App* demo = cli.add_subcommand("demo", "run the bundled demo (an invented car-park girder) end to end");
   add_common(demo, o, false, true);
   CLI::App* report = cli.add_subcommand("report", "re-make curve.svg, hinge_law.csv and report.html of a results folder");
   report->add_option("DIR", o.case_file, "results folder of `rotcap run`")->required();
@@ -63,7 +68,7 @@ int main(int argc, char** argv) {
   try {
     if (*run) return command_run(o);
     if (*check) return command_check(o);
-    if (*buckle) return command_buckle(o);
+    if (*buckling) return command_buckling(o);
     if (*demo) return command_demo(o);
     if (*report) return command_report(o);
   } catch (const rotcap::InputError& e) {

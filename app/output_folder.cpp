@@ -11,7 +11,7 @@ namespace fs = std::filesystem;
 fs::path prepare_output_folder(const fs::path& case_file, const std::optional<fs::path>& requested,
                                bool overwrite) {
   const fs::path folder = requested ? *requested
-                                    : case_file.parent_path() / (case_file.stem().string() + ".out");
+                                    : case_file.parent_path() / (case_file.stem().string() + "_results");
   std::error_code ec;
   if (fs::exists(folder, ec)) {
     if (!overwrite)

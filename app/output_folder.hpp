@@ -1,5 +1,5 @@
 #pragma once
-// Where a command writes its results: -o DIR, or <case file stem>.out/ next to the case file.
+// Where a command writes its results: -o DIR, or <case file stem>_results/ next to the case file.
 // An existing folder is only reused with --overwrite (then its old result files are removed first,
 // so nothing stale survives); otherwise InputError (exit code 2).
 #include <filesystem>

@@ -24,12 +24,13 @@ bool RunRecorder::has_fields(int step) const {
   return std::find(written_.begin(), written_.end(), step) != written_.end();
 }
 
-void RunRecorder::write_fields(int step, double time, const ShellModel& model, const Eigen::VectorXd& u,
+void RunRecorder::write_fields(int step, double load_factor, const ShellModel& model, const Eigen::VectorXd& u,
                                const ElementResults& results) {
   if (has_fields(step)) return;
   const std::string name = format_text("step_%04d.vtu", step);
-  write_shell_fields(folder_ / "fields" / name, model, u, results);
-  pvd_.add(time, folder_ / "fields" / name);
+  const VtkField state[] = {{"load_factor", 1, {load_factor}}, {"step", 1, {static_cast<double>(step)}}};
+  write_shell_fields(folder_ / "fields" / name, model, u, results, state);
+  pvd_.add(static_cast<double>(step), folder_ / "fields" / name);
   written_.push_back(step);
 }
 

@@ -21,8 +21,10 @@ class RunRecorder {
   void add_row(const std::vector<double>& row) { csv_.write_row(row); }
   /// Fields are due on step 0, every fields_every-th step, and whenever forced (peak, end).
   bool fields_due(int step) const { return step % fields_every_ == 0; }
-  /// Writes fields/step_NNNN.vtu (once per step) and adds it to fields.pvd at time `time`.
-  void write_fields(int step, double time, const ShellModel& model, const Eigen::VectorXd& u,
+  /// Writes fields/step_NNNN.vtu (once per step) and adds it to fields.pvd at time = step (monotonic,
+  /// so a viewer orders the states as the path went, also past a peak where the load factor falls);
+  /// the step's load factor and step number are field data of the .vtu ("load_factor", "step").
+  void write_fields(int step, double load_factor, const ShellModel& model, const Eigen::VectorXd& u,
                     const ElementResults& results);
   bool has_fields(int step) const;
   void write_summary(const nlohmann::json& summary) const;

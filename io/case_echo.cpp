@@ -63,8 +63,8 @@ json analysis(const AnalysisInput& a, ModelKind kind) {
   j["max_load_factor"] = optional(a.max_load_factor);
   j["control_dof"] = a.control_dof ? group_dof(*a.control_dof) : json(nullptr);
   j["max_displacement"] = optional(a.max_displacement);
-  j["monitor"] = json::array();
-  for (const GroupDof& g : a.monitor) j["monitor"].push_back(group_dof(g));
+  j["record_dofs"] = json::array();
+  for (const GroupDof& g : a.record_dofs) j["record_dofs"].push_back(group_dof(g));
   return j;
 }
 
@@ -101,6 +101,12 @@ json to_json(const CaseInput& c) {
       lateral.push_back({{"x", r.x}, {"flange", enum_name(r.flange)}});
     j["restraints"] = {{"lateral", lateral}};
     j["residual_stress"] = {{"pattern", enum_name(c.residual_stress)}};
+    if (c.demand) {
+      if (c.demand->kind == RotationDemand::Kind::plastic_rotation)
+        j["demand"] = {{"plastic_rotation_mrad", 1e3 * c.demand->required}};
+      else
+        j["demand"] = {{"rotation_capacity", c.demand->required}};
+    }
   }
   j["steel"] = steel(c.steel, c.kind);
   json imperfection = {{"local", enum_name(c.imperfection.local)},

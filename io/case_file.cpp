@@ -256,6 +256,25 @@ void read_mesh(TableReader r, CaseInput& c) {
   r.finish();
 }
 
+void read_demand(TableReader r, CaseInput& c) {
+  if (!r.present()) return;
+  const std::optional<double> theta = r.optional_number("plastic_rotation_mrad");
+  const std::optional<double> R = r.optional_number("rotation_capacity");
+  const std::string one = "plastic_rotation_mrad (the plastic rotation the mechanism needs at this hinge, mrad) or "
+                          "rotation_capacity (a required R), one of the two";
+  if (theta && R) r.fail("rotation_capacity", "both plastic_rotation_mrad and rotation_capacity", one);
+  if (!theta && !R) r.fail("", "an empty [demand] table", one);
+  if (theta) {
+    r.check("plastic_rotation_mrad", *theta, *theta > 0.0 && *theta <= 1000.0,
+            "0 < plastic_rotation_mrad <= 1000 [mrad] (a hinge rotation, in milliradians)");
+    c.demand = RotationDemand{RotationDemand::Kind::plastic_rotation, 1e-3 * *theta};
+  } else {
+    r.check("rotation_capacity", *R, *R > 0.0 && *R <= 100.0, "0 < rotation_capacity <= 100");
+    c.demand = RotationDemand{RotationDemand::Kind::rotation_capacity, *R};
+  }
+  r.finish();
+}
+
 void read_buckling(TableReader r, CaseInput& c) {
   c.buckling.modes = r.integer("modes", c.buckling.modes);
   r.check("modes", c.buckling.modes, c.buckling.modes >= 1 && c.buckling.modes <= 50,
@@ -299,10 +318,11 @@ void read_root(TableReader& root, CaseInput& c) {
     TableReader rs = root.child("residual_stress");
     c.residual_stress = read_choice(rs, "pattern", c.residual_stress);
     rs.finish();
+    read_demand(root.child("demand"), c);
     for (const char* key : {"thickness", "support", "load"})
       root.forbid(key, std::string("[[") + key + "]] only in general models ([model])");
   } else {
-    for (const char* key : {"restraints", "residual_stress"}) root.forbid(key, generated_only);
+    for (const char* key : {"restraints", "residual_stress", "demand"}) root.forbid(key, generated_only);
     detail::read_general_model(root, c);
   }
   read_steel(root.child("steel"), c);

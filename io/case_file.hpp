@@ -5,7 +5,7 @@
 // Strict reading: an unknown key or table anywhere is an error naming it (and the nearest valid
 // key); a wrong type names the type found and expected; a value outside its limits names the
 // limit; a key that does not apply to the chosen option (e.g. steel.table with curve =
-// "bilinear", analysis.monitor in a generated model) is an error rather than silently ignored.
+// "bilinear", analysis.record_dofs in a generated model) is an error rather than silently ignored.
 // All errors are InputError ("file:line: key: found ...; expected ..."). Which keys a table takes
 // is checked here; the values of the keys a component owns are checked by that component right
 // after parsing (SteelModel, ISection, HingeZoneSpec with its LoadingSetup, PathOptions,
@@ -97,10 +97,17 @@
 //                             control = "displacement"; comes with max_displacement
 //         max_displacement    number [mm or rad] (general only): run until control_dof reaches it
 //                                                                 -              != 0
-//         monitor             [{ group, dof }, ...] (general only): curve.csv column "dof@group"
+//         record_dofs         [{ group, dof }, ...] (general only): curve.csv column "dof@group"
 //                             (group mean)                        []
+// [demand] (generated; optional): the rotation the collapse mechanism needs at this hinge, one of
+//         plastic_rotation_mrad  number [mrad]: required plastic rotation theta_pl,req
+//                                                                 -              0 < x <= 1000
+//         rotation_capacity   number: required R = theta_u / theta_p - 1
+//                                                                 -              0 < R <= 100
+//                             The verdict (met / not met / not shown) and its margin are in summary.json
+//                             ("demand"), the log, curve.svg and report.html.
 // [buckling]
-//         modes               integer: lowest load factors to find (`rotcap buckle -n`
+//         modes               integer: lowest load factors to find (`rotcap buckling -n`
 //                             overrides); no shift is needed      4              1 <= n <= 50
 // [output]
 //         fields_every        integer: VTK fields every N converged steps (and at peak and end)

@@ -1,4 +1,4 @@
-// [analysis]: path-following control, convergence tests, stopping criteria, monitors.
+// [analysis]: path-following control, convergence tests, stopping criteria, recorded DOFs.
 // Limits are stated next to each key in io/case_file.hpp.
 #include "io/case_file_parts.hpp"
 #include "io/input_text.hpp"
@@ -46,10 +46,11 @@ void read_general_stops(TableReader& r, AnalysisInput& a) {
     r.fail("max_displacement", "no value",
            std::string("the target value of control_dof [mm or rad] ") +
                (displacement ? "for control = \"displacement\"" : "to go with control_dof"));
-  if (const toml::array* list = r.optional_array("monitor"))
+  r.forbid("monitor", "record_dofs (the key's name since rotcap 0.2)");
+  if (const toml::array* list = r.optional_array("record_dofs"))
     for (std::size_t i = 0; i < list->size(); ++i)
-      a.monitor.push_back(read_group_dof(*list->get(i), r.file(),
-                                         r.key_path("monitor") + "[" + std::to_string(i) + "]"));
+      a.record_dofs.push_back(read_group_dof(*list->get(i), r.file(),
+                                         r.key_path("record_dofs") + "[" + std::to_string(i) + "]"));
 }
 
 }  // namespace
@@ -72,7 +73,7 @@ void read_analysis(TableReader& r, CaseInput& c) {
   if (generated) {
     a.max_rotation = r.number("max_rotation", a.max_rotation);
     r.check("max_rotation", a.max_rotation, a.max_rotation > 0.0, "max_rotation > 0 [rad]");
-    for (const char* key : {"max_load_factor", "control_dof", "max_displacement", "monitor"})
+    for (const char* key : {"max_load_factor", "control_dof", "max_displacement", "record_dofs"})
       r.forbid(key, "it only in general models ([model]); generated models are controlled by "
                     "their load point and stop at max_rotation");
   } else {

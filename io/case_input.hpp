@@ -10,6 +10,7 @@
 
 #include "materials/layered_shell_section.hpp"
 #include "materials/steel_curve.hpp"
+#include "model/hinge/rotation_demand.hpp"
 #include "model/hinge_zone/hinge_zone_mesher.hpp"
 #include "model/patterns/residual_stress.hpp"
 #include "model/shell_model.hpp"
@@ -72,7 +73,7 @@ struct ImperfectionInput {
   Amplitude global_amplitude{Amplitude::Kind::ratio, 0.0, "L", 1000.0, "L/1000"};  ///< general: 0
 };
 
-/// A DOF of a group (the group mean for monitors).
+/// A DOF of a group (the group mean for recorded curve columns).
 struct GroupDof {
   std::string group;
   Dof dof = Dof::ux;
@@ -91,7 +92,7 @@ struct AnalysisInput {
   std::optional<double> max_load_factor;  ///< general models (control = load: default 1)
   std::optional<GroupDof> control_dof;    ///< general models, control = displacement
   std::optional<double> max_displacement; ///< with control_dof [mm or rad]
-  std::vector<GroupDof> monitor;          ///< general models: curve.csv columns "dof@group"
+  std::vector<GroupDof> record_dofs;      ///< general models: curve.csv columns "dof@group"
 };
 
 struct BucklingInput {
@@ -136,6 +137,7 @@ struct CaseInput {
   // flange_elements, web_elements, aspect; zone.fy is steel.fy.
   HingeZoneSpec zone;
   ResidualStressKind residual_stress = ResidualStressKind::none;
+  std::optional<RotationDemand> demand;  ///< [demand]: required plastic rotation or R
   // Both kinds:
   SteelModel steel;  ///< general models without fy: curve = "table" takes the table's first stress,
                      ///< "elastic" uses none; fu defaults to fy where the curve does not use it

@@ -64,9 +64,9 @@ void check_analysis_groups(const CaseInput& c, const GmshMesh& mesh) {
   const AnalysisInput& a = c.analysis;
   if (a.control_dof)
     find_group(c, mesh, a.control_dof->group, "analysis.control_dof.group", a.control_dof->line);
-  for (std::size_t i = 0; i < a.monitor.size(); ++i)
-    find_group(c, mesh, a.monitor[i].group, "analysis.monitor[" + std::to_string(i) + "].group",
-               a.monitor[i].line);
+  for (std::size_t i = 0; i < a.record_dofs.size(); ++i)
+    find_group(c, mesh, a.record_dofs[i].group, "analysis.record_dofs[" + std::to_string(i) + "].group",
+               a.record_dofs[i].line);
 }
 
 }  // namespace

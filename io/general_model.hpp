@@ -3,7 +3,7 @@
 // ([model] thickness and [[thickness]] groups), supports ([[support]]) and reference loads
 // ([[load]], totals shared over a group's nodes by tributary weight, see
 // model/shell_model.hpp tributary_weights). Group names of [[thickness]], [[support]], [[load]],
-// analysis.control_dof and analysis.monitor are checked against the mesh's physical groups here.
+// analysis.control_dof and analysis.record_dofs are checked against the mesh's physical groups here.
 //
 // Thickness: a [[thickness]] group must be a physical surface; its value applies to that
 // surface's quadrangles. Two entries covering the same quadrangle with different values are an

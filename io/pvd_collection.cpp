@@ -5,6 +5,7 @@
 #include "io/input_error.hpp"
 #include "io/xml_text.hpp"
 
+#include <algorithm>
 #include <cstdio>
 #include <sstream>
 #include <fstream>
@@ -16,7 +17,10 @@ PvdCollection::PvdCollection(std::filesystem::path pvd_file) : file_(std::move(p
 void PvdCollection::add(double time, const std::filesystem::path& dataset) {
   const std::filesystem::path folder = std::filesystem::absolute(file_).parent_path();
   const std::filesystem::path relative = std::filesystem::absolute(dataset).lexically_relative(folder);
-  entries_.push_back({time, (relative.empty() ? dataset : relative).generic_string()});
+  const Entry entry{time, (relative.empty() ? dataset : relative).generic_string()};
+  entries_.insert(std::upper_bound(entries_.begin(), entries_.end(), entry,
+                                   [](const Entry& a, const Entry& b) { return a.time < b.time; }),
+                  entry);
   write();
 }
 

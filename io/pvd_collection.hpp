@@ -1,6 +1,6 @@
 #pragma once
 // PvdCollection: a ParaView-style collection file (.pvd) listing datasets (.vtu) against a time
-// value (load step, load factor or mode number). The whole file is rewritten after every add(),
+// value (load step or mode number), in ascending time whatever the order of add(). The whole file is rewritten after every add(),
 // under a temporary name and renamed, so at any moment the .pvd on disk is valid XML listing
 // every dataset added so far (a run that stops early leaves a readable collection).
 // Dataset paths are stored relative to the .pvd's folder, with '/' separators.

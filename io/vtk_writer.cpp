@@ -5,6 +5,7 @@
 #include <vtkCellArray.h>
 #include <vtkCellData.h>
 #include <vtkDoubleArray.h>
+#include <vtkFieldData.h>
 #include <vtkIdTypeArray.h>
 #include <vtkNew.h>
 #include <vtkPointData.h>
@@ -35,7 +36,7 @@ vtkNew<vtkDoubleArray> make_array(const VtkField& field, std::size_t items, cons
 
 void write_vtu(const std::filesystem::path& file, std::span<const Eigen::Vector3d> points,
                std::span<const std::array<int, 4>> quads, std::span<const VtkField> point_fields,
-               std::span<const VtkField> cell_fields) {
+               std::span<const VtkField> cell_fields, std::span<const VtkField> field_data) {
   vtkNew<vtkPoints> pts;
   pts->SetDataTypeToDouble();
   pts->SetNumberOfPoints(static_cast<vtkIdType>(points.size()));
@@ -60,6 +61,7 @@ void write_vtu(const std::filesystem::path& file, std::span<const Eigen::Vector3
   grid->SetCells(VTK_QUAD, cells);
   for (const VtkField& f : point_fields) grid->GetPointData()->AddArray(make_array(f, points.size(), "point"));
   for (const VtkField& f : cell_fields) grid->GetCellData()->AddArray(make_array(f, quads.size(), "cell"));
+  for (const VtkField& f : field_data) grid->GetFieldData()->AddArray(make_array(f, 1, "field-data"));
 
   std::error_code ec;
   const std::filesystem::path folder = file.parent_path();

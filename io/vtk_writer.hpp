@@ -26,9 +26,10 @@ struct VtkField {
   std::vector<double> values;  ///< size = components * (number of points or cells)
 };
 
-/// Writes file (.vtu). points: coordinates [mm]; quads: 0-based indices into points.
+/// Writes file (.vtu). points: coordinates [mm]; quads: 0-based indices into points. field_data:
+/// values of the whole dataset (one tuple each, e.g. the step's load factor), VTK FieldData.
 void write_vtu(const std::filesystem::path& file, std::span<const Eigen::Vector3d> points,
                std::span<const std::array<int, 4>> quads, std::span<const VtkField> point_fields,
-               std::span<const VtkField> cell_fields);
+               std::span<const VtkField> cell_fields, std::span<const VtkField> field_data = {});
 
 }  // namespace rotcap

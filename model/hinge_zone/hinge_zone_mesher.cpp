@@ -1,5 +1,6 @@
 #include "model/hinge_zone/hinge_zone_mesher.hpp"
 
+#include "core/check.hpp"
 #include "core/option_error.hpp"
 #include "core/text_format.hpp"
 #include "materials/steel_curve.hpp"
@@ -194,6 +195,12 @@ double beam_theory_rotation_at_mp(const HingeZoneModel& m, double E) {
   if (!(E > 0.0)) throw std::invalid_argument("steel.E = " + num(E) + " MPa: expected > 0");
   const double EI = E * m.plate.Iy;
   return m.loading().beam_theory_rotation_at_mp(m, EI);
+}
+
+double shear_rotation_at_mp(const HingeZoneModel& m, double E, double nu) {
+  ROTCAP_CHECK(E > 0.0 && nu >= 0.0 && nu < 0.5, "E = " + num(E) + ", nu = " + num(nu));
+  const double G = E / (2.0 * (1.0 + nu));
+  return m.loading().shear_rotation_at_mp(m, G * m.plate.Avz);
 }
 
 MeshStatistics mesh_statistics(const ShellModel& model) {

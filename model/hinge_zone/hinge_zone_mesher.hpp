@@ -71,6 +71,10 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec);
 /// Mp (3 L - 4 a)/(3 E I); uniform_moment Mp L/(E I)).
 double beam_theory_rotation_at_mp(const HingeZoneModel& m, double E);
 
+/// The shear-deformation part of the same rotation at M = Mp (LoadingSetup::shear_rotation_at_mp)
+/// for E [MPa] > 0 and 0 <= nu < 0.5, G = E / (2 (1 + nu)), Av = (h - tf) tw of the plate model.
+double shear_rotation_at_mp(const HingeZoneModel& m, double E, double nu);
+
 struct MeshStatistics {
   int nodes = 0;
   int elements = 0;

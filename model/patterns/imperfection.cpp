@@ -166,6 +166,7 @@ ModeImperfection buckling_mode_imperfection(const HingeZoneModel& hinge, std::sp
     for (Eigen::Index i = 0; i < n_nodes; ++i)
       r.offsets[static_cast<std::size_t>(i)] = r.scale * phi.segment<3>(kDofsPerNode * i);
     const PeakMeasure& at = mode == DeformationMode::flange_local_buckling ? shape.flange : shape.web;
+    r.distortion_x = at.x;
     r.message = "mode " + std::to_string(k) + " (from 0) of " + std::to_string(modes.size()) + " (" +
                 deformation_mode_name(mode) + "), scaled by " + num(r.scale) + " to a largest plate distortion of " +
                 num(o.amplitude) + " mm at x = " + num(at.x) + " mm; modes examined: " + list;

@@ -100,6 +100,7 @@ struct ModeImperfection {
   DeformationMode classification = DeformationMode::none;
   std::vector<DeformationMode> classifications;  ///< of every mode examined, in order
   double scale = 0.0;                            ///< offsets = scale * mode translations
+  double distortion_x = 0.0;                     ///< x of the largest plate distortion [mm]
   NodeOffsets offsets;                           ///< empty when !found
   /// "mode 1 (from 0) of 4 (flange_local_buckling), ..." or "no local mode among the 4 modes: ..."
   std::string message;

@@ -184,10 +184,11 @@ Classification classify_detailed(const SectionDeformation& d, const ClassifyOpti
   c.threshold = o.none_ratio * g.h();
   c.flange_ratio = g.b > 0.0 ? F / (0.5 * g.b) : 0.0;
   c.web_ratio = g.web_depth() > 0.0 ? W / g.web_depth() : 0.0;
-  const std::string measures = "F = " + num(F) + " mm at x = " + num(d.flange.x) +
-                               " mm (F/(b/2) = " + num(c.flange_ratio) + "), W = " + num(W) +
-                               " mm at x = " + num(d.web.x) + " mm (W/hw = " + num(c.web_ratio) + "), T = " + num(T) +
-                               " mm at x = " + num(d.lateral_torsional.x) + " mm";
+  const std::string measures = "flange distortion F = " + num(F) + " mm at x = " + num(d.flange.x) +
+                               " mm (F/(b/2) = " + num(c.flange_ratio) + "), web distortion W = " + num(W) +
+                               " mm at x = " + num(d.web.x) + " mm (W/hw = " + num(c.web_ratio) +
+                               "), lateral-torsional motion T = " + num(T) + " mm at x = " +
+                               num(d.lateral_torsional.x) + " mm";
   // a. Nothing above the threshold.
   if (F < c.threshold && W < c.threshold && T < c.threshold) {
     c.message = "none: " + measures + ", all below " + num(c.threshold) + " mm";
@@ -200,7 +201,7 @@ Classification classify_detailed(const SectionDeformation& d, const ClassifyOpti
     c.mode = flange ? DeformationMode::flange_local_buckling : DeformationMode::web_local_buckling;
     c.message = std::string(deformation_mode_name(c.mode)) + ": " + measures + "; " +
                 (flange ? "F/(b/2) >= " + num(o.web_weight) + " W/hw" : "F/(b/2) < " + num(o.web_weight) + " W/hw") +
-                " and " + num(o.distortion_preference) + " D >= T";
+                " and " + num(o.distortion_preference) + " D >= T (D: the distortion of that plate)";
   } else {
     c.mode = DeformationMode::lateral_torsional;
     c.message = "lateral_torsional: " + measures + "; plate distortion D = " + num(D) + " mm, " +

@@ -103,7 +103,10 @@ struct Classification {
   double flange_ratio = 0.0;  ///< F / (b/2)
   double web_ratio = 0.0;     ///< W / h_w
   double threshold = 0.0;     ///< none_ratio * h [mm]
-  std::string message;        ///< e.g. "flange_local_buckling: F = 1.2 mm at x = 37.5 mm ..."
+  /// e.g. "flange_local_buckling: flange distortion F = 1.2 mm at x = 37.5 mm ...": F, W the largest
+  /// out-of-plane distortion of a flange and of the web, T the lateral-torsional measure
+  /// |U_y| + |theta_x| h/2, D the distortion of the plate the label names (all mm).
+  std::string message;
 };
 
 /// Station index of a hinge-zone model, built once, then applied to any number of fields.

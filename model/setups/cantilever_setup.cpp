@@ -54,4 +54,8 @@ RotationIntegral CantileverSetup::rotation_integral(double length, double) const
 
 std::vector<double> CantileverSetup::hinge_sections(const HingeZoneModel&) const { return {0.0}; }
 
+double CantileverSetup::shear_rotation_at_mp(const HingeZoneModel& m, double GAv) const {
+  return m.plastic_moment / (m.span * GAv);  // V = Mp / L over L: delta = Mp / GAv, theta = delta / L
+}
+
 }  // namespace rotcap

@@ -30,6 +30,7 @@ class CantileverSetup final : public LoadingSetup {
   void apply(const HingeZoneMesh& mesh) const override;
   bool tied_section(int i, int last) const override { return i == last; }
   double beam_theory_rotation_at_mp(const HingeZoneModel& m, double EI) const override;
+  double shear_rotation_at_mp(const HingeZoneModel& m, double GAv) const override;
   RotationIntegral rotation_integral(double length, double shear_span) const override;
   std::vector<double> hinge_sections(const HingeZoneModel& m) const override;
   bool top_flange_in_compression() const override { return false; }

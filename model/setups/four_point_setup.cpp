@@ -55,4 +55,8 @@ std::vector<double> FourPointSetup::hinge_sections(const HingeZoneModel& m) cons
   return {m.shear_span, m.span - m.shear_span};
 }
 
+double FourPointSetup::shear_rotation_at_mp(const HingeZoneModel& m, double GAv) const {
+  return 2.0 * m.plastic_moment / (m.shear_span * GAv);  // V = Mp / a over a: delta = Mp / GAv, theta = 2 delta / a
+}
+
 }  // namespace rotcap

@@ -29,6 +29,7 @@ class FourPointSetup final : public LoadingSetup {
   void apply(const HingeZoneMesh& mesh) const override;
   bool tied_section(int, int) const override { return false; }
   double beam_theory_rotation_at_mp(const HingeZoneModel& m, double EI) const override;
+  double shear_rotation_at_mp(const HingeZoneModel& m, double GAv) const override;
   RotationIntegral rotation_integral(double length, double shear_span) const override;
   std::vector<double> hinge_sections(const HingeZoneModel& m) const override;
 

@@ -86,6 +86,10 @@ class LoadingSetup {
   /// Hinge rotation at M = Mp by the definition of apply()'s rotation, EI = E Iy of the plate
   /// model [N mm^2], shear deformation neglected.
   virtual double beam_theory_rotation_at_mp(const HingeZoneModel& m, double EI) const = 0;
+  /// The part of the same rotation at M = Mp that the shear deformation adds in Timoshenko beam
+  /// theory, GAv = G Av of the web [N]: the shear force V over a length s moves the section by
+  /// V s / (G Av). Zero where the hinge carries no shear (uniform moment).
+  virtual double shear_rotation_at_mp(const HingeZoneModel& m, double GAv) const = 0;
   /// (c1, c2) for the length L > 0 and, where the setup has one, the shear span a; throws
   /// std::invalid_argument for an a out of range.
   virtual RotationIntegral rotation_integral(double length, double shear_span) const = 0;

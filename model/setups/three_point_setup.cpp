@@ -42,4 +42,8 @@ RotationIntegral ThreePointSetup::rotation_integral(double length, double) const
 
 std::vector<double> ThreePointSetup::hinge_sections(const HingeZoneModel& m) const { return {0.5 * m.span}; }
 
+double ThreePointSetup::shear_rotation_at_mp(const HingeZoneModel& m, double GAv) const {
+  return 4.0 * m.plastic_moment / (m.span * GAv);  // V = P/2 over L/2: delta = P L / (4 GAv), theta = 4 delta / L
+}
+
 }  // namespace rotcap

@@ -43,4 +43,8 @@ std::optional<std::string> UniformMomentSetup::no_hardening_hinge_law() const {
 
 std::vector<double> UniformMomentSetup::hinge_sections(const HingeZoneModel& m) const { return {0.5 * m.span}; }
 
+double UniformMomentSetup::shear_rotation_at_mp(const HingeZoneModel&, double) const {
+  return 0.0;  // no shear force in the hinge zone
+}
+
 }  // namespace rotcap

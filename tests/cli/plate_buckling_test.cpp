@@ -1,4 +1,4 @@
-// Plate buckling through the command line: `rotcap buckle CASE -o DIR` on general models read
+// Plate buckling through the command line: `rotcap buckling CASE -o DIR` on general models read
 // from Gmsh meshes (tests/data/buckling/*.geo -> *.msh), the load factors read back from
 // DIR/buckling.json. Checks the whole route a user takes: case file, mesh reader, groups,
 // supports, edge line loads shared by tributary length, prebuckling, eigen solver, output.
@@ -43,7 +43,7 @@ BuckleRun buckle(const std::string& case_name) {
   BuckleRun r;
   r.results = scratch / "results";
   r.outcome = testing::run_rotcap(
-      "buckle '" + case_file.string() + "' -o '" + r.results.string() + "' --quiet --threads 1", scratch);
+      "buckling '" + case_file.string() + "' -o '" + r.results.string() + "' --quiet --threads 1", scratch);
   std::ifstream in(r.results / "buckling.json");
   if (in) r.result = nlohmann::json::parse(in, nullptr, false);
   return r;
@@ -60,7 +60,7 @@ TEST(PlateBucklingCli, SimplySupportedSquarePlateGivesCoefficientFour) {
   // k = (m b / a + a / (m b))^2: 4.0 for m = 1 and 6.25 for m = 2 half-waves on the square plate
   // (Timoshenko & Gere 1961, sec. 9.2; FROM MEMORY, references.md sec. 3).
   const double k1 = lambda[0] / critical_force_per_k(), k2 = lambda[1] / critical_force_per_k();
-  std::printf("[ rotcap buckle: SS square plate 20x20 ] k1 = %.4f (ref 4.0, Timoshenko & Gere 1961, from memory: "
+  std::printf("[ rotcap buckling: SS square plate 20x20 ] k1 = %.4f (ref 4.0, Timoshenko & Gere 1961, from memory: "
               "error %+.3f %%), k2 = %.4f (ref 6.25, same source: error %+.3f %%)\n",
               k1, 100.0 * (k1 / 4.0 - 1.0), k2, 100.0 * (k2 / 6.25 - 1.0));
   EXPECT_CLOSE(k1, 4.0, 0.02, 0.0);
@@ -84,7 +84,7 @@ TEST(PlateBucklingCli, PlateWithOneFreeEdgeGivesOutstandCoefficient) {
   // 1970; FROM MEMORY, references.md sec. 3); a/b = 4 gives 0.4875.
   const double a = 400.0, k_ref = 0.425 + (kB / a) * (kB / a);
   const double k1 = lambda[0] / critical_force_per_k();
-  std::printf("[ rotcap buckle: outstand plate a/b = 4, 40x10 ] k1 = %.4f (ref 0.425 + (b/a)^2 = %.4f, Timoshenko & "
+  std::printf("[ rotcap buckling: outstand plate a/b = 4, 40x10 ] k1 = %.4f (ref 0.425 + (b/a)^2 = %.4f, Timoshenko & "
               "Gere 1961 / Bulson 1970, from memory: error %+.3f %%)\n",
               k1, k_ref, 100.0 * (k1 / k_ref - 1.0));
   EXPECT_CLOSE(k1, k_ref, 0.04, 0.0);

@@ -120,14 +120,14 @@ TEST(CaseFile, ReadsAGeneralCaseWithItsOwnDefaults) {
 TEST(CaseFile, ReadsDisplacementControlAndMonitors) {
   const CaseInput c = general_case(
       "[analysis]\ncontrol = \"displacement\"\ncontrol_dof = { group = \"tip\", dof = \"uz\" }\n"
-      "max_displacement = -20.0\nmonitor = [{ group = \"corner\", dof = \"ry\" }]\n");
+      "max_displacement = -20.0\nrecord_dofs = [{ group = \"corner\", dof = \"ry\" }]\n");
   ASSERT_TRUE(c.analysis.control_dof.has_value());
   EXPECT_EQ(c.analysis.control_dof->group, "tip");
   EXPECT_EQ(c.analysis.control_dof->dof, Dof::uz);
   EXPECT_EQ(c.analysis.max_displacement.value(), -20.0);
-  ASSERT_EQ(c.analysis.monitor.size(), 1u);
-  EXPECT_EQ(c.analysis.monitor[0].dof, Dof::ry);
-  EXPECT_EQ(c.analysis.monitor[0].line, 16);  // the monitor line of the inline text
+  ASSERT_EQ(c.analysis.record_dofs.size(), 1u);
+  EXPECT_EQ(c.analysis.record_dofs[0].dof, Dof::ry);
+  EXPECT_EQ(c.analysis.record_dofs[0].line, 16);  // the record_dofs line of the inline text
 }
 
 TEST(CaseFile, ResolvesTheMeshAgainstTheCaseFilesFolder) {
@@ -211,7 +211,7 @@ TEST(CaseEcho, EchoesTheInputsWithDefaults) {
   EXPECT_EQ(m["thickness"][0]["group"], "thin");
   EXPECT_EQ(m["support"][0]["fix"].size(), 6u);
   EXPECT_EQ(m["load"][1]["moment"][1], 5.0e4);
-  EXPECT_EQ(m["analysis"]["monitor"][1]["dof"], "ry");
+  EXPECT_EQ(m["analysis"]["record_dofs"][1]["dof"], "ry");
   EXPECT_EQ(m["imperfection"]["global_amplitude"], 0.0);
   EXPECT_FALSE(m.contains("section"));
 }
@@ -262,6 +262,34 @@ TEST(CaseFile, OwnersValidateTheirOptionsAndTheErrorNamesTheKeysLine) {
   // HingeZoneSpec validate (model): stiffener positions in order, each at its own line.
   expect_input_error([&] { parse_case_text(base + "stiffeners = [\n  500,\n  400,\n]\n", data_file("c.toml")); },
                      {"c.toml:15: member.stiffeners[1]: found 400 mm; expected strictly increasing"});
+}
+
+TEST(CaseFile, ReadsARotationDemandInEitherForm) {
+  const std::string base(kMinimalGenerated);
+  const CaseInput a = parse_case_text(base + "[demand]\nplastic_rotation_mrad = 30\n", data_file("d.toml"));
+  ASSERT_TRUE(a.demand.has_value());
+  EXPECT_EQ(a.demand->kind, RotationDemand::Kind::plastic_rotation);
+  EXPECT_CLOSE(a.demand->required, 0.030, 1e-15, 0.0);  // stored in rad
+  EXPECT_EQ(to_json(a)["demand"]["plastic_rotation_mrad"], 30.0);
+  const CaseInput b = parse_case_text(base + "[demand]\nrotation_capacity = 3\n", data_file("d.toml"));
+  EXPECT_EQ(b.demand->kind, RotationDemand::Kind::rotation_capacity);
+  EXPECT_EQ(b.demand->required, 3.0);
+  EXPECT_FALSE(parse_case_text(base, data_file("d.toml")).demand.has_value());
+  EXPECT_FALSE(to_json(parse_case_text(base, data_file("d.toml"))).contains("demand"));
+}
+
+TEST(CaseFile, RejectsADemandThatIsEmptyDoubleOrImplausible) {
+  const std::string base(kMinimalGenerated);
+  expect_input_error([&] { parse_case_text(base + "[demand]\n", data_file("e.toml")); },
+                     {"e.toml:", "an empty [demand] table"});
+  expect_input_error(
+      [&] { parse_case_text(base + "[demand]\nplastic_rotation_mrad = 30\nrotation_capacity = 3\n", data_file("e.toml")); },
+      {"demand.rotation_capacity: found both"});
+  expect_input_error([&] { parse_case_text(base + "[demand]\nplastic_rotation_mrad = 0.03\nunit = 1\n", data_file("e.toml")); },
+                     {"demand.unit"});
+  expect_input_error([&] { parse_case_text(base + "[demand]\nplastic_rotation_mrad = -5\n", data_file("e.toml")); },
+                     {"demand.plastic_rotation_mrad: found -5", "milliradians"});
+  expect_input_error([&] { general_case("[demand]\nrotation_capacity = 3\n"); }, {"demand"});
 }
 
 }  // namespace

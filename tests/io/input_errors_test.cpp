@@ -228,8 +228,8 @@ TEST(InputErrors, OtherCaseFileRulesNameTheirKeys) {
                      {"analysis.max_steps: found 0; expected max_steps >= 1"});
   expect_input_error([] { generated(kGenerated + "[output]\nfields_every = 0\n"); },
                      {"output.fields_every: found 0; expected fields_every >= 1"});
-  expect_input_error([] { generated(replaced(kGenerated, "max_steps = 100", "monitor = []")); },
-                     {"analysis.monitor: found an array; expected it only in general models"});
+  expect_input_error([] { generated(replaced(kGenerated, "max_steps = 100", "record_dofs = []")); },
+                     {"analysis.record_dofs: found an array; expected it only in general models"});
   expect_input_error([] { generated(replaced(kGenerated, "\"cantilever\"", "\"four_point\"")); },
                      {"member.load_spacing: found no value; expected the distance between the two loads"});
   expect_input_error([] { generated(replaced(kGenerated, "length = 1500", "length = 1500\naxial_load_ratio = 1.0")); },
@@ -250,9 +250,9 @@ TEST(InputErrors, OtherCaseFileRulesNameTheirKeys) {
   const CaseInput edge_thickness = general(general_text() + "[[thickness]]\ngroup = \"tip\"\nvalue = 3.0\n");
   expect_input_error([&] { build_general_model(edge_thickness); },
                      {"thickness[0].group: found \"tip\", a Physical Curve; expected a Physical Surface"});
-  const CaseInput bad_monitor = general(general_text() + "[analysis]\nmonitor = [{ group = \"tipp\", dof = \"uz\" }]\n");
+  const CaseInput bad_monitor = general(general_text() + "[analysis]\nrecord_dofs = [{ group = \"tipp\", dof = \"uz\" }]\n");
   expect_input_error([&] { build_general_model(bad_monitor); },
-                     {"analysis.monitor[0].group: found \"tipp\"", "did you mean \"tip\"?"});
+                     {"analysis.record_dofs[0].group: found \"tipp\"", "did you mean \"tip\"?"});
 }
 
 }  // namespace

@@ -74,5 +74,26 @@ TEST(LoadingSetup, HingeSectionsAndCompressionFlange) {
   }
 }
 
+TEST(LoadingSetup, ShearRotationAtMpIsTimoshenkosShearDeflectionInTheRotationDefinition) {
+  // Shear deflection of a beam segment carrying shear V over a length s: V s / (G Av) (Timoshenko
+  // beam theory, e.g. Timoshenko & Gere, Mechanics of Materials, from memory). Each setup turns
+  // that deflection into its hinge rotation the way apply() defines theta.
+  HingeZoneModel m;
+  m.plastic_moment = 600e6;  // N mm
+  m.span = 2000.0;
+  m.shear_span = 700.0;
+  const double GAv = 80769.0 * 3904.0;  // N
+  m.setup = HingeSetup::cantilever;     // V = Mp / L over L; theta = delta / L
+  EXPECT_CLOSE(m.loading().shear_rotation_at_mp(m, GAv), (m.plastic_moment / m.span) * m.span / GAv / m.span, 1e-14, 0.0);
+  m.setup = HingeSetup::three_point;    // P = 4 Mp / L, V = P / 2 over L / 2; theta = 4 delta / L
+  const double P3 = 4.0 * m.plastic_moment / m.span;
+  EXPECT_CLOSE(m.loading().shear_rotation_at_mp(m, GAv), 4.0 * (0.5 * P3 * 0.5 * m.span / GAv) / m.span, 1e-14, 0.0);
+  m.setup = HingeSetup::four_point;     // P = Mp / a, V = P over a; theta = 2 delta / a
+  const double P4 = m.plastic_moment / m.shear_span;
+  EXPECT_CLOSE(m.loading().shear_rotation_at_mp(m, GAv), 2.0 * (P4 * m.shear_span / GAv) / m.shear_span, 1e-14, 0.0);
+  m.setup = HingeSetup::uniform_moment;  // no shear force
+  EXPECT_EQ(m.loading().shear_rotation_at_mp(m, GAv), 0.0);
+}
+
 }  // namespace
 }  // namespace rotcap

@@ -1,5 +1,5 @@
 // Hinge verification 2: elastic lateral-torsional buckling of an unrestrained I-beam under
-// uniform moment, by `rotcap buckle` (ltb_uniform_moment_4m.toml, _8m.toml: IPE 300 as plates,
+// uniform moment, by `rotcap buckling` (ltb_uniform_moment_4m.toml, _8m.toml: IPE 300 as plates,
 // h 300, b 150, tf 10.7, tw 7.1 mm, E 210 000, nu 0.3, L = 4 m and 8 m, mesh 4 x 4, aspect 2).
 //
 // End conditions the setup imposes (model/setups/uniform_moment_setup.hpp): rigid end sections tied to
@@ -105,7 +105,7 @@ HingeZoneModel case_model(double L) {
 }
 
 void check_ltb(const std::string& file, double L) {
-  const HingeRun run = run_rotcap("buckle", hinge_case(file), file.substr(0, file.size() - 5), "-n 6");
+  const HingeRun run = run_rotcap("buckling", hinge_case(file), file.substr(0, file.size() - 5), "-n 6");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   const nlohmann::json j = read_json(run.results / "buckling.json");
   const std::vector<double> lambda = j["load_factors"], mcr = j["critical_moments_kNm"];

@@ -32,7 +32,7 @@ ShellModel structured_shell(int nu, int nv, double thickness,
 /// Node index of grid point (i, j) of a structured_shell with nu elements along s.
 inline int grid_node(int nu, int i, int j) { return j * (nu + 1) + i; }
 
-/// Adds a group of one node (a point cell), for point loads and monitors.
+/// Adds a group of one node (a point cell), for point loads and recorded DOFs.
 void add_point_group(ShellModel& model, const std::string& name, int node);
 
 /// Adds a support on group: the listed DOFs held at zero.

@@ -21,6 +21,7 @@
 
 #include <nlohmann/json.hpp>
 #include <vtkDataArray.h>
+#include <vtkFieldData.h>
 #include <vtkNew.h>
 #include <vtkPointData.h>
 #include <vtkUnstructuredGrid.h>
@@ -163,8 +164,14 @@ int main(int argc, char** argv) {
     char name[64];
     std::snprintf(name, sizeof name, "fields/step_%04d.vtu", steps);
     check(sets.back().file == name, "last dataset " + sets.back().file + " is " + name);
-    check(lf >= 0 && close(sets.back().time, last[lf], 1e-9),
-          "last dataset's timestep " + std::to_string(sets.back().time) + " is the last load factor");
+    // The pvd time is the step (monotonic past a peak); the load factor is the .vtu's field data.
+    check(sets.back().time == static_cast<double>(steps),
+          "last dataset's timestep " + std::to_string(sets.back().time) + " is the last step");
+    for (std::size_t k = 1; k < sets.size(); ++k)
+      check(sets[k].time > sets[k - 1].time, "pvd timesteps ascend at " + sets[k].file);
+    vtkDataArray* lf_field = last_grid ? last_grid->GetFieldData()->GetArray("load_factor") : nullptr;
+    check(lf >= 0 && lf_field && close(lf_field->GetComponent(0, 0), last[lf], 1e-9),
+          "last dataset's load_factor field data is the last load factor");
   }
   // Options.
   for (int i = 3; i < argc; ++i) {
@@ -204,7 +211,7 @@ int main(int argc, char** argv) {
               curve.columns[c] + " " + std::to_string(last[c]) + " == group mean " + std::to_string(mean));
         ++compared;
       }
-      check(compared > 0, std::to_string(compared) + " monitor columns compared");
+      check(compared > 0, std::to_string(compared) + " recorded columns compared");
     } else {
       check(false, "unknown option " + a);
     }

@@ -1,4 +1,4 @@
-// rotcap buckle CASE.toml: linear buckling load factors and mode shapes under the reference load.
+// rotcap buckling CASE.toml: linear buckling load factors and mode shapes under the reference load.
 #include "app/commands.hpp"
 #include "core/text_format.hpp"
 #include "app/field_export.hpp"
@@ -18,7 +18,7 @@
 
 namespace rotcap::app {
 
-int command_buckle(const CommandOptions& options) {
+int command_buckling(const CommandOptions& options) {
   // 1. The model and the number of modes.
   const BuiltCase built = build_case(options.case_file, options.mesh_scale);
   const int n_modes = options.modes.value_or(built.input.buckling.modes);
@@ -26,7 +26,7 @@ int command_buckle(const CommandOptions& options) {
     throw InputError(options.case_file, 0, "-n", std::to_string(n_modes), "a number of modes >= 1");
   const auto folder = prepare_output_folder(options.case_file, options.output, options.overwrite);
   add_log_file(folder);
-  log_info("rotcap buckle " + options.case_file.string() + " -> " + folder.string());
+  log_info("rotcap buckling " + options.case_file.string() + " -> " + folder.string());
   // 2. The eigenproblem K phi = lambda (-Kg) phi about the linear state under the reference load.
   const SectionAssignment sections =
       SectionAssignment::for_steel(built.model, built.input.steel, built.input.layers, true);
@@ -34,7 +34,8 @@ int command_buckle(const CommandOptions& options) {
   bo.prebuckling.threads = options.threads;
   const BucklingResult result = solve_linear_buckling(built.model, sections, n_modes, bo);
   // 3. buckling.json and the mode shapes.
-  nlohmann::json j{{"title", built.input.title}, {"input", to_json(built.input)}, {"caution", kCaution},
+  nlohmann::json j{{"title", built.input.title}, {"program", program_json()}, {"input", to_json(built.input)},
+                   {"caution", kCaution},
                    {"status", buckling_status_name(result.status)}, {"message", result.message},
                    {"load_factors", result.load_factors},
                    {"sturm_check", {{"done", result.sturm.done}, {"shift", result.sturm.shift},
