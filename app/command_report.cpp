@@ -3,7 +3,7 @@
 // run, without re-running the analysis. Reads:
 //   summary.json      the input echo ("input": section, steel, member, restraints,
 //                     residual_stress, mesh, title) and the reported numbers;
-//   curve.csv         step, load_factor, moment_kNm, rotation_mrad, ... (interface.md);
+//   curve.csv         step, load_factor, moment_kNm, rotation_mrad, ... (docs/spec/interface.md);
 //   final_state.json  the deformed mesh at the end (app/hinge_laws_stage.hpp); optional: without
 //                     it the page has no picture of the deformed hinge zone.
 // The case is read back from the echo by the case-file reader (case_from_echo) and the hinge-zone

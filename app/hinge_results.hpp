@@ -1,5 +1,5 @@
 #pragma once
-// The numbers a hinge-zone run reports, from its converged curve: the extraction (interface.md
+// The numbers a hinge-zone run reports, from its converged curve: the extraction (docs/spec/interface.md
 // definitions, model/hinge_curve.hpp) done once per run, the failure mode from the deformation
 // added after the peak, and their summary.json keys and log lines.
 #include "app/hinge_case.hpp"

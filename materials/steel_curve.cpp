@@ -52,7 +52,7 @@ QuadlinearParameters yun_gardner_quadlinear(double E, double fy, double fu) {
     fail("yun_gardner_quadlinear: need E > 0 and 0 < fy <= fu; got E = " + format_number(E) +
          ", fy = " + format_number(fy) + ", fu = " + format_number(fu));
   // Yun & Gardner (2017), J. Constr. Steel Res. 133:36-46 -- formulas FROM MEMORY
-  // (references.md section 5, status MEMORY).
+  // (docs/spec/references.md section 5, status MEMORY).
   QuadlinearParameters q{};
   const double ratio = fy / fu;
   q.eps_y = fy / E;

@@ -10,7 +10,7 @@
 //   bilinear         engineering curve: E up to fy, then slope E_h = hardening_modulus > 0 up to
 //                    fu (requires fu > fy), converted to true measures.
 //   quadlinear       hot-rolled steel, Yun & Gardner (2017), J. Constr. Steel Res. 133:36-46
-//                    (formulas FROM MEMORY, references.md section 5): elastic, yield plateau to
+//                    (formulas FROM MEMORY, docs/spec/references.md section 5): elastic, yield plateau to
 //                    eps_sh, linear hardening E_sh to C1 eps_u, then linear to (eps_u, fu);
 //                    converted to true measures.
 //   table            true stress against equivalent plastic strain, given directly
@@ -18,7 +18,7 @@
 //                    defines the yield stress; fy keeps its role in Mp and classification only.
 //
 // Engineering -> true conversion, before necking (Arasaratnam, Sivakumaran & Tait 2011, ISRN
-// Civil Eng. Art. 656401, Table 2, as in references.md section 5):
+// Civil Eng. Art. 656401, Table 2, as in docs/spec/references.md section 5):
 //   sigma_t = sigma_e (1 + eps_e),  eps_t = ln(1 + eps_e),  eps_pl = eps_t - sigma_t / E.
 // At the yield point this gives eps_pl = ln(1+eps_y) - eps_y(1+eps_y) ~ -1.5 eps_y^2 (about
 // -4e-6 for S355) because the true elastic line is not exactly sigma_t = E eps_t; plastic strains

@@ -7,7 +7,7 @@
 // Step 3 is solved as the inverse problem  (-Kg) phi = mu K phi, mu = 1/lambda, for the largest
 // algebraic mu with Spectra's symmetric generalised solver in RegularInverse mode (K positive
 // definite, factored once by CHOLMOD; Kg may be indefinite and singular). See
-// design/toolchain.md; Lanczos method as in Spectra (implicitly restarted, Sorensen 1992).
+// docs/spec/toolchain.md; Lanczos method as in Spectra (implicitly restarted, Sorensen 1992).
 //
 // Sturm check (Sylvester's law of inertia): for K positive definite, the number of negative
 // eigenvalues of K + s Kg equals the number of eigenvalues lambda in (0, s). With s slightly

@@ -1,6 +1,6 @@
 #pragma once
 // Hinge-curve extraction: the numbers reported for a converged moment-rotation curve
-// (interface.md, "Definitions the numbers follow"; mechanics.md, "Numbers the program reports").
+// (docs/spec/interface.md, "Definitions the numbers follow"; docs/spec/mechanics.md, "Numbers the program reports").
 // Everything is found by interpolation between converged steps, never by picking a step.
 //
 // Input: the curve as points (theta_j, M_j), j = 0 .. n-1, in the order the path follower

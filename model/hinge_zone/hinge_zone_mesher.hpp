@@ -1,6 +1,6 @@
 #pragma once
-// Hinge-zone mesher: the shell model of an I-beam segment (mechanics.md, "The hinge-zone model";
-// interface.md, "Supports and loading of the generated setups").
+// Hinge-zone mesher: the shell model of an I-beam segment (docs/spec/mechanics.md, "The hinge-zone model";
+// docs/spec/interface.md, "Supports and loading of the generated setups").
 //
 // Geometry (mm): x along the member (0 <= x <= L), z vertical (up), y lateral; the web lies in
 // the x-z plane at y = 0. Plates on their centre lines (model/section/i_section.hpp, plate model):
@@ -47,7 +47,7 @@
 //   Axial load (setups with LoadingSetup::allows_axial_load()): N = axial_load_ratio * A_plate *
 //     fy, compression positive (HingeZoneModel::axial_force); the setup applies it.
 //
-// Hinge rotation theta (interface.md, "Definitions the numbers follow") is sum_i w_i u_i, u_i the
+// Hinge rotation theta (docs/spec/interface.md, "Definitions the numbers follow") is sum_i w_i u_i, u_i the
 // `dof` displacement of nodes[i] (HingeRotation); each setup's definition is in its class.
 
 #include "model/hinge_zone/hinge_zone_spec.hpp"

@@ -1,6 +1,6 @@
 #pragma once
 // Simple hinge laws, drawn beside the shell model's moment-rotation curve. Rotations follow the
-// same definitions as the shell run (interface.md, "Definitions the numbers follow";
+// same definitions as the shell run (docs/spec/interface.md, "Definitions the numbers follow";
 // each setup's class in model/setups/, HingeRotation). Units: N mm, mm, rad.
 //
 // (a) Elastic-perfectly plastic at Mp: theta = M / k_el up to Mp, then M = Mp.

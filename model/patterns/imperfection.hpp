@@ -1,6 +1,6 @@
 #pragma once
 // Geometric imperfections of a hinge-zone model (model/hinge_zone/hinge_zone_mesher.hpp) as node offsets
-// [mm] to add to the model's coordinates (mechanics.md, "Linear buckling and imperfections").
+// [mm] to add to the model's coordinates (docs/spec/mechanics.md, "Linear buckling and imperfections").
 // Every function returns one offset per node (size node_count()), computed from the coordinates
 // the model has when it is called: compute all offsets from the perfect model, then add them
 // (add_offsets). A node shared by two plates (flange-web junction, stiffener edges) gets one
@@ -9,7 +9,7 @@
 // Global bow (lateral, y):
 //   half_sine  dy = e0 sin(pi x / L): zero at both ends. The default for every setup, since each
 //              holds uy at both ends: the cantilever's load point is restrained laterally and
-//              against twist (interface.md, "Supports and loading"), the beams at their bearings
+//              against twist (docs/spec/interface.md, "Supports and loading"), the beams at their bearings
 //              and twist restraints, the uniform-moment ends at their reference nodes.
 //   free_tip   dy = e0 (1 - cos(pi x / (2 L))): the quarter-wave of a cantilever with a free tip
 //              (largest at x = L); for studies that release the tip.

@@ -1,7 +1,7 @@
 #pragma once
 // Longitudinal residual stress patterns of doubly symmetric I-sections on the centre-line plate
 // model (model/section/i_section.hpp): flanges of width b at z = +-zf, zf = (h - tf)/2, a web of depth
-// h - tf = 2 zf between the flange mid-planes (mechanics.md, "Material": residual stresses enter
+// h - tf = 2 zf between the flange mid-planes (docs/spec/mechanics.md, "Material": residual stresses enter
 // as initial stresses at every layer point).
 //
 // Units: MPa for stresses, mm for coordinates, N and N mm for resultants. Tension positive,
@@ -12,7 +12,7 @@
 // z in [-zf, zf] (z = 0 at mid-depth), the hinge-zone mesher's global y and z.
 //
 // hot_rolled (ECCS TC8 Publ. 33, 1984, "Ultimate limit state calculation of sway frames with rigid
-// joints"; shape and magnitudes from memory, see /work/shared/references.md section 4):
+// joints"; shape and magnitudes from memory, see docs/spec/references.md section 4):
 //   amplitude  a = 0.5 fy for h/b <= 1.2, a = 0.3 fy for h/b > 1.2;
 //   flange     sigma(y) = a (1 - 4 |y| / b): -a at the tips, +a at the junction (linear);
 //   web        sigma(z) = a (3/2 (z/zf)^2 - 1/2): +a at both junctions, -a/2 at mid-depth.

@@ -5,8 +5,8 @@
 // Axes: y is the major axis (parallel to the flanges), z the minor axis (along the web), as in
 // EN 1993-1-1 1.7. Iy, Wel_y, Wpl_y, Avz are major-axis properties (bending in the web's plane).
 //
-// Two descriptions of the same section are used side by side (mechanics.md, "The hinge-zone
-// model"; interface.md, "Definitions the numbers follow"):
+// Two descriptions of the same section are used side by side (docs/spec/mechanics.md, "The hinge-zone
+// model"; docs/spec/interface.md, "Definitions the numbers follow"):
 //  - the real section, with four root fillets of radius r (hot-rolled) or none (welded, plated):
 //    the handbook values that a designer compares with;
 //  - the centre-line plate model that rotcap meshes: flanges of width b and thickness tf on the

@@ -7,7 +7,7 @@
 // (-100 N on the edge x = a), so the load factor is N_cr [N/mm] and
 //   k = N_cr b^2 / (pi^2 D),  D = E t^3 / (12 (1 - nu^2)),
 // i.e. sigma_cr = k pi^2 E t^2 / (12 (1 - nu^2) b^2) (Timoshenko & Gere, Theory of Elastic
-// Stability, 2nd ed. 1961, ch. 9; formula CONF-2nd in references.md sec. 3).
+// Stability, 2nd ed. 1961, ch. 9; formula CONF-2nd in docs/spec/references.md sec. 3).
 // Supports ("hard" simple support, in-plane freedom): see the comments of the case files.
 #include "tests/cli/cli_runner.hpp"
 #include "tests/test_support.hpp"
@@ -58,7 +58,7 @@ TEST(PlateBucklingCli, SimplySupportedSquarePlateGivesCoefficientFour) {
   const std::vector<double> lambda = r.result.at("load_factors").get<std::vector<double>>();
   ASSERT_EQ(lambda.size(), 2u);
   // k = (m b / a + a / (m b))^2: 4.0 for m = 1 and 6.25 for m = 2 half-waves on the square plate
-  // (Timoshenko & Gere 1961, sec. 9.2; FROM MEMORY, references.md sec. 3).
+  // (Timoshenko & Gere 1961, sec. 9.2; FROM MEMORY, docs/spec/references.md sec. 3).
   const double k1 = lambda[0] / critical_force_per_k(), k2 = lambda[1] / critical_force_per_k();
   std::printf("[ rotcap buckling: SS square plate 20x20 ] k1 = %.4f (ref 4.0, Timoshenko & Gere 1961, from memory: "
               "error %+.3f %%), k2 = %.4f (ref 6.25, same source: error %+.3f %%)\n",
@@ -81,7 +81,7 @@ TEST(PlateBucklingCli, PlateWithOneFreeEdgeGivesOutstandCoefficient) {
   ASSERT_FALSE(lambda.empty());
   // Loaded edges and one unloaded edge simply supported, the other free, one half-wave:
   // k = 0.425 + (b/a)^2 (Timoshenko & Gere 1961, ch. 9; Bulson, The Stability of Flat Plates,
-  // 1970; FROM MEMORY, references.md sec. 3); a/b = 4 gives 0.4875.
+  // 1970; FROM MEMORY, docs/spec/references.md sec. 3); a/b = 4 gives 0.4875.
   const double a = 400.0, k_ref = 0.425 + (kB / a) * (kB / a);
   const double k1 = lambda[0] / critical_force_per_k();
   std::printf("[ rotcap buckling: outstand plate a/b = 4, 40x10 ] k1 = %.4f (ref 0.425 + (b/a)^2 = %.4f, Timoshenko & "

@@ -1,7 +1,7 @@
 #pragma once
 // AllocationCounter: counts heap allocations (malloc, calloc, realloc, aligned allocations, and so
 // operator new and Eigen's aligned_malloc, which all end in them) made while it is alive. Used to
-// check the rule "no heap allocation inside element loops" (design/style.md, habit 13).
+// check the rule "no heap allocation inside element loops" (docs/spec/style.md, habit 13).
 // Implemented in allocation_counter.cpp by interposing the C allocation functions of the test
 // executable (glibc: forwarding to __libc_malloc and friends); single-threaded use only.
 

@@ -186,7 +186,7 @@ TEST(CorotationalNewton, ConsistentTangentConvergesQuadraticallyToTheRolledUpStr
 TEST(CorotationalNewton, TipForceDeflectionMatchesTheElastica) {
   // Cantilever under a transverse tip force, Sze, Liu & Lo (2004) problem 2.1 in dimensionless form
   // (setup from memory): alpha = P L^2 / EI. Reference: inextensible elastica, DERIVED in
-  // /work/shared/references.md section 2.1 (shooting + RK4) for L = 10: at alpha = 2, W = 4.935,
+  // docs/spec/references.md section 2.1 (shooting + RK4) for L = 10: at alpha = 2, W = 4.935,
   // -U = 1.606, tip rotation 0.7817; at alpha = 4, W = 6.700, -U = 3.289, rotation 1.1212.
   Strip strip;
   struct Reference { double alpha, w, u, rotation; };

@@ -252,7 +252,7 @@ TEST(CorotationalShellQ4, GeometricStiffnessOfAFlatElementIsIndependentOfItsOrie
 }
 
 TEST(CorotationalShellQ4, ComputeAllocatesNoHeapMemory) {
-  // design/style.md habit 13: no heap allocation in element kernels (fixed-size Eigen types only).
+  // docs/spec/style.md habit 13: no heap allocation in element kernels (fixed-size Eigen types only).
   std::mt19937 rng(49);
   const CorotationalShellQ4 element(random_element(rng, kSize, 0.02));
   NodalCoordinates x;

@@ -2,7 +2,7 @@
 // Linear benchmark problems shared by the element tests (cantilever, twisted beam, drilling
 // sensitivity), solved with DenseShellHarness. Problem data of MacNeal & Harder (1985), "A
 // proposed standard set of problems to test finite element accuracy", FEAD 1, 3-20, FROM MEMORY
-// (widely quoted; rotcap references.md sec. 1).
+// (widely quoted; docs/spec/references.md sec. 1).
 
 #include "dense_shell_harness.hpp"
 #include "materials/elastic_shell_section.hpp"

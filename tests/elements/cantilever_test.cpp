@@ -1,7 +1,7 @@
 // Straight cantilevers: in-plane pure bending of a strip one element deep (exact for rectangles,
 // beam theory / plane-stress elasticity), and the straight cantilever of MacNeal & Harder (1985),
 // "A proposed standard set of problems to test finite element accuracy", FEAD 1, 3-20 (data, mesh
-// shapes and reference values FROM MEMORY, widely quoted; rotcap references.md sec. 1).
+// shapes and reference values FROM MEMORY, widely quoted; docs/spec/references.md sec. 1).
 #include "benchmark_problems.hpp"
 #include "materials/elastic_shell_section.hpp"
 #include "tests/test_support.hpp"

@@ -52,7 +52,7 @@ TEST(GeometricStiffness, RigidTranslationAndRotationOfWarpedElementCarryNoEnergy
 // Simply supported square plate a x a under uniform N_xx = -N (compression), w = 0 on the edges,
 // rotations free, in-plane DOFs held (the prestress is prescribed, not solved). Kirchhoff plate
 // theory: N_cr = k pi^2 D / a^2 with k = 4 for a / b = 1 (Timoshenko & Gere, Theory of Elastic
-// Stability, 1961, sec. 9.2; k = 4 from memory, rotcap references.md sec. 3).
+// Stability, 1961, sec. 9.2; k = 4 from memory, docs/spec/references.md sec. 3).
 double plate_buckling_load(int n) {
   const double a = 1000.0, t = 10.0;
   const ElasticShellSection steel(210000.0, 0.3, t);

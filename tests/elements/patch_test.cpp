@@ -1,6 +1,6 @@
 // Patch tests on the distorted five-element patch of MacNeal & Harder (1985), "A proposed standard
 // set of problems to test finite element accuracy", Finite Elem. Anal. Des. 1, 3-20 (patch
-// geometry, load fields and exact values FROM MEMORY, widely quoted; rotcap references.md sec. 1),
+// geometry, load fields and exact values FROM MEMORY, widely quoted; docs/spec/references.md sec. 1),
 // and the invariance of the linear element under a rigid rotation of the whole patch.
 #include "dense_shell_harness.hpp"
 #include "materials/elastic_shell_section.hpp"

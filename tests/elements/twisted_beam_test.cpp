@@ -1,11 +1,11 @@
 // Twisted beam of MacNeal & Harder (1985), "A proposed standard set of problems to test finite
 // element accuracy", FEAD 1, 3-20: L = 12, width 1.1, thickness 0.32, pre-twisted 90 degrees from
 // root to tip, E = 29e6, nu = 0.22, 12x2 mesh, clamped root, unit tip load. Reference tip
-// deflections along the load (FROM MEMORY, widely quoted; rotcap references.md sec. 1):
+// deflections along the load (FROM MEMORY, widely quoted; docs/spec/references.md sec. 1):
 // 5.424e-3 for the load in the plane of the tip section ("in-plane") and 1.754e-3 for the load
 // normal to it ("out-of-plane"). Which load is which follows from Euler-Bernoulli theory
 // (beam_estimate below gives 5.43e-3 and 1.75e-3); the wording "in plane of root" in
-// references.md does not fit it. Every element is warped (7.5 degrees of twist per element), so
+// docs/spec/references.md does not fit it. Every element is warped (7.5 degrees of twist per element), so
 // this exercises the warping correction.
 #include "benchmark_problems.hpp"
 #include "materials/elastic_shell_section.hpp"

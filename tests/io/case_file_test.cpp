@@ -1,5 +1,5 @@
 // Case files: a full generated case, the defaults of minimal cases, general cases, amplitudes,
-// the steel table and the JSON echo. Inputs are the schema of /work/shared/design/interface.md;
+// the steel table and the JSON echo. Inputs are the schema of docs/spec/interface.md;
 // expected values are the inputs themselves (or the documented defaults in io/case_file.hpp).
 #include "io/amplitude.hpp"
 #include "io/case_echo.hpp"

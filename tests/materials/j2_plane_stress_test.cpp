@@ -89,7 +89,7 @@ TEST(J2PlaneStress, UniaxialBilinearReproducesTrueCurvePointByPoint) {
 
 TEST(J2PlaneStress, UniaxialQuadlinearReproducesTrueCurvePointByPoint) {
   // S355 quad-linear: eps_sh 0.0174, eps_u 0.165, E_sh ~2280 MPa, DERIVED from the from-memory
-  // Yun & Gardner (2017) formulas of references.md section 5.
+  // Yun & Gardner (2017) formulas of docs/spec/references.md section 5.
   expect_reproduces_curve(material(SteelCurveKind::quadlinear), "quadlinear S355");
 }
 

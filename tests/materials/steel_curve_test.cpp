@@ -25,7 +25,7 @@ SteelModel s355(SteelCurveKind kind) {
 }
 
 TEST(YunGardnerQuadlinear, S355ValuesMatchReferenceDerivation) {
-  // references.md section 5: eps_sh = 0.0174, eps_u = 0.165, E_sh ~ 2280 MPa for S355
+  // docs/spec/references.md section 5: eps_sh = 0.0174, eps_u = 0.165, E_sh ~ 2280 MPa for S355
   // (fy 355, fu 490). These are DERIVED from formulas of Yun & Gardner (2017), J. Constr. Steel
   // Res. 133:36-46, that are quoted FROM MEMORY; tolerances are the rounding of the quoted
   // figures (half a unit of the last digit given).
@@ -40,7 +40,7 @@ TEST(YunGardnerQuadlinear, S355ValuesMatchReferenceDerivation) {
 }
 
 TEST(YunGardnerQuadlinear, S235ValuesMatchReferenceDerivation) {
-  // references.md section 5, DERIVED from the from-memory formulas: S235 (235/360) gives
+  // docs/spec/references.md section 5, DERIVED from the from-memory formulas: S235 (235/360) gives
   // eps_sh = 0.015 (the lower bound governs), eps_u = 0.208, E_sh ~ 1620 MPa.
   const QuadlinearParameters q = yun_gardner_quadlinear(210000.0, 235.0, 360.0);
   EXPECT_EQ(q.eps_sh, 0.015);

@@ -375,7 +375,7 @@ TEST(HingeZoneMesher, RestrainsFlangeCentreLinesLaterally) {
 }
 
 TEST(HingeZoneMesher, BeamTheoryRotationMatchesReferenceValue) {
-  // references.md section 6 (DERIVED, beam theory): IPE 300, S355, L = 1.5 m, Mp = 223.1 kNm,
+  // docs/spec/references.md section 6 (DERIVED, beam theory): IPE 300, S355, L = 1.5 m, Mp = 223.1 kNm,
   // theta_p(chord) = Mp L / (3 E I) = 0.00636 rad (E 210 000, I = 8356 cm^4).
   HingeZoneModel m;
   m.setup = HingeSetup::cantilever;
@@ -384,7 +384,7 @@ TEST(HingeZoneMesher, BeamTheoryRotationMatchesReferenceValue) {
   m.plate.Iy = 8356e4;
   EXPECT_CLOSE(beam_theory_rotation_at_mp(m, 210000.0), 0.00636, 1e-3, 0.0);
   // Three-point bending of span 2L is two such cantilevers: the same moment turns the two chords
-  // by twice the cantilever's chord rotation (references.md section 6, "half of a 3-point span").
+  // by twice the cantilever's chord rotation (docs/spec/references.md section 6, "half of a 3-point span").
   m.setup = HingeSetup::three_point;
   m.span = 3000.0;
   EXPECT_CLOSE(beam_theory_rotation_at_mp(m, 210000.0), 2 * 0.00636, 1e-3, 0.0);

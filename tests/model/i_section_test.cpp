@@ -1,5 +1,5 @@
 // Section properties of the real section (with root fillets) and of the centre-line plate model.
-// Reference values: /work/shared/references.md section 7 (European I-sections): the tabulated
+// Reference values: docs/spec/references.md section 7 (European I-sections): the tabulated
 // columns come from the open data set waynemaranga/steelsnakes (IPE.json, HE.json; CONF-2nd,
 // a secondary compilation of the EN 10365 / SCI-ArcelorMittal tables), the DERIVED columns are
 // exact fillet-inclusive integrals of the same dimensions.
@@ -17,10 +17,10 @@ namespace {
 
 struct Row {
   const char* name;
-  // references.md section 7, tabulated (data set) values: A cm^2, Iy cm^4, Wel,y cm^3 (data set,
+  // docs/spec/references.md section 7, tabulated (data set) values: A cm^2, Iy cm^4, Wel,y cm^3 (data set,
   // W_el_yy), Wpl,y cm^3, It cm^4, Iw dm^6.
   double A, Iy, Wel_y, Wpl_y, It, Iw;
-  // references.md section 7, DERIVED values (fillets included): A cm^2, Iy cm^4, Wel,y cm^3, Wpl,y cm^3.
+  // docs/spec/references.md section 7, DERIVED values (fillets included): A cm^2, Iy cm^4, Wel,y cm^3, Wpl,y cm^3.
   double A_der, Iy_der, Wel_der, Wpl_der;
 };
 
@@ -43,7 +43,7 @@ ISection section(const char* name) {
 
 TEST(RealSectionProperties, MatchTabulatedValuesWithinRounding) {
   // Tables print 3 significant figures: A, Iy, Wel,y, Wpl,y within 0.5 %; It and Iw within 3 %
-  // (catalogues differ in the fillet treatment of the torsion constants, references.md note).
+  // (catalogues differ in the fillet treatment of the torsion constants, docs/spec/references.md note).
   for (const Row& r : kRows) {
     SCOPED_TRACE(r.name);
     const SectionProperties p = real_section_properties(section(r.name));
@@ -70,7 +70,7 @@ TEST(RealSectionProperties, MatchDerivedFilletIntegrals) {
 }
 
 TEST(RealSectionProperties, TorsionConstantsAgreeWithCatalogueValues) {
-  // ArcelorMittal catalogue torsion constants, from memory (references.md section 7 note, MEMORY):
+  // ArcelorMittal catalogue torsion constants, from memory (docs/spec/references.md section 7 note, MEMORY):
   // IPE 300 It ~ 20.1 cm^4, HEB 300 It ~ 185 cm^4; catalogues differ by about +-3 %.
   EXPECT_CLOSE(real_section_properties(section("IPE 300")).It / 1e4, 20.1, 3e-2, 0.0);
   EXPECT_CLOSE(real_section_properties(section("HEB 300")).It / 1e4, 185.0, 3e-2, 0.0);
@@ -134,7 +134,7 @@ TEST(PlateModelProperties, EqualTheirClosedForms) {
 }
 
 TEST(SectionMoments, AreYieldStrengthTimesModuli) {
-  // references.md section 6 (DERIVED): IPE 300, S355, Mp = Wpl,y fy = 223.1 kNm (real section).
+  // docs/spec/references.md section 6 (DERIVED): IPE 300, S355, Mp = Wpl,y fy = 223.1 kNm (real section).
   const SectionProperties p = real_section_properties(section("IPE 300"));
   EXPECT_CLOSE(plastic_moment(p, 355.0) / 1e6, 223.1, 5e-4, 0.0);
   EXPECT_CLOSE(elastic_moment(p, 355.0), 355.0 * p.Wel_y, 1e-15, 0.0);

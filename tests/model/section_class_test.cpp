@@ -1,6 +1,6 @@
 // Cross-section classification, EN 1993-1-1:2005 Table 5.2 (limits CONFIRMED in
-// /work/shared/references.md section 4), against the derived classification table of
-// references.md section 7 (c/t from the data set's dimensions, DERIVED).
+// docs/spec/references.md section 4), against the derived classification table of
+// docs/spec/references.md section 7 (c/t from the data set's dimensions, DERIVED).
 #include "model/section/section_class.hpp"
 #include "model/section/section_table.hpp"
 #include "tests/test_support.hpp"
@@ -14,7 +14,7 @@ namespace {
 
 struct ClassRow {
   const char* name;
-  double cf_tf, cw_tw;       // references.md section 7, DERIVED (2 decimals)
+  double cf_tf, cw_tw;       // docs/spec/references.md section 7, DERIVED (2 decimals)
   int s235[3], s355[3];      // flange / web in bending / web in compression
 };
 

@@ -1,6 +1,6 @@
 // The built-in section table: spellings, coverage, and the copy of the data set
 // (waynemaranga/steelsnakes IPE.json / HE.json, commit 38bc16a3, CONF-2nd) checked against the
-// rows of /work/shared/references.md section 7 and against the properties computed from the
+// rows of docs/spec/references.md section 7 and against the properties computed from the
 // dimensions.
 #include "model/section/section_class.hpp"
 #include "model/section/section_table.hpp"
@@ -59,7 +59,7 @@ TEST(SectionTable, FindSectionReturnsTheDimensions) {
 }
 
 TEST(SectionTable, CopiedRowsAgreeWithReferenceRows) {
-  // references.md section 7 (CONF-2nd: steelsnakes data set; IPE 200/300 also steelcalculator.app,
+  // docs/spec/references.md section 7 (CONF-2nd: steelsnakes data set; IPE 200/300 also steelcalculator.app,
   // HEA 300 also a DIN EN 10034 table): h, b, tw, tf, r [mm]; A cm^2, Iy cm^4, Wpl,y cm^3, Iz cm^4,
   // It cm^4, Iw dm^6 as tabulated.
   const SectionTableRow expected[] = {

@@ -33,7 +33,7 @@ TEST(LinearBuckling, CantileverColumnMatchesEulerLoad) {
   ASSERT_EQ(r.load_factors.size(), 2u);
   // Euler, cantilever (effective length 2 L): P_cr = pi^2 E I / (4 L^2)
   // (Timoshenko & Gere, Theory of Elastic Stability, 2nd ed. 1961, ch. 2; CONF-2nd in
-  // references.md). The second mode, 9 P_cr (P_n = (2n - 1)^2 pi^2 E I / (4 L^2), n = 2, same
+  // docs/spec/references.md). The second mode, 9 P_cr (P_n = (2n - 1)^2 pi^2 E I / (4 L^2), n = 2, same
   // chapter), is FROM MEMORY. With b/t = 10 the strong-axis mode is 100 P_cr, far above.
   const double I = b * t * t * t / 12.0;
   const double p_cr = kPi * kPi * E * I / (4.0 * L * L);
@@ -92,8 +92,8 @@ TEST(LinearBuckling, SimplySupportedSquarePlateGivesBucklingCoefficientFour) {
       EXPECT_LT(std::abs(g[1]) + std::abs(g[2]), 1e-8);
     }
   // sigma_cr t = k pi^2 D / b^2 with D = E t^3 / (12 (1 - nu^2)) (Timoshenko & Gere 1961, ch. 9;
-  // formula CONF-2nd in references.md). k = (m b / a + a / (m b))^2: k = 4 for m = 1 and 6.25 for
-  // m = 2 half-waves on a square plate -- these k values are FROM MEMORY (references.md, MEMORY).
+  // formula CONF-2nd in docs/spec/references.md). k = (m b / a + a / (m b))^2: k = 4 for m = 1 and 6.25 for
+  // m = 2 half-waves on a square plate -- these k values are FROM MEMORY (docs/spec/references.md, MEMORY).
   // Transverse shear lowers the Mindlin value by about pi^2 D / (k_s G t) (2 / b^2) = 0.06 %.
   const double D = E * t * t * t / (12.0 * (1.0 - nu * nu));
   const double n_unit = kPi * kPi * D / (a * a);  // N_cr / k [N/mm]

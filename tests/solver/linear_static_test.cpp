@@ -45,7 +45,7 @@ TEST(LinearStatic, CantileverStripTipDeflectionMatchesBeamTheory) {
   ASSERT_TRUE(r.ok()) << r.message;
   // Euler-Bernoulli beam theory, cantilever under a tip force: delta = P L^3 / (3 E I),
   // I = b t^3 / 12 (any strength-of-materials text, e.g. Gere & Timoshenko, Mechanics of
-  // Materials; DERIVED in references.md sec. 1). Transverse shear adds P L / (k G A) = 6e-5 of
+  // Materials; DERIVED in docs/spec/references.md sec. 1). Transverse shear adds P L / (k G A) = 6e-5 of
   // delta here, well inside the tolerance.
   const double I = kB * kT * kT * kT / 12.0;
   const double delta_ref = kP * kL * kL * kL / (3.0 * kE * I);

@@ -1,7 +1,7 @@
 // Hinge-curve extraction on synthetic curves whose numbers are known in closed form.
 // The definitions under test: R = theta_u / theta_p - 1 with theta_u where the falling branch
 // returns to Mp and theta_p = Mp / k_el (Lukey & Adams 1969, J. Struct. Div. ASCE 95(ST6); Kemp
-// 1986; from memory, widely quoted: references.md section 6, MEMORY) as stated in interface.md
+// 1986; from memory, widely quoted: docs/spec/references.md section 6, MEMORY) as stated in docs/spec/interface.md
 // "Definitions the numbers follow". Every expected value below is worked out by hand in the
 // comment beside it (DERIVED), so the tolerances are round-off only (1e-12 relative, about
 // 1e4 ulp of the few operations involved) unless a comment says otherwise.

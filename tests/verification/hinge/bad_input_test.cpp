@@ -1,6 +1,6 @@
 // Hinge verification 7: bad input to generated models, end to end through `rotcap run`: exit
 // code 2, a message on stderr naming the file, the key, the value found and what is expected
-// (interface.md: "unknown keys are an error"; io/case_file.hpp: "file:line: key: found ...;
+// (docs/spec/interface.md: "unknown keys are an error"; io/case_file.hpp: "file:line: key: found ...;
 // expected ..."), and no results folder left behind. Case files: tests/data/hinge/bad/.
 #include "tests/verification/hinge/hinge_run.hpp"
 

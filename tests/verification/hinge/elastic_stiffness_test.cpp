@@ -1,12 +1,12 @@
 // Hinge verification 1: the initial stiffness of an elastic cantilever hinge model.
 //
 // Case tests/data/hinge/elastic_cantilever.toml: IPE 300 (plates h 300, b 150, tf 10.7, tw 7.1 mm,
-// references.md section 7), L = 3000 mm, E = 210 000 MPa, nu = 0.3, curve "elastic", perfect
+// docs/spec/references.md section 7), L = 3000 mm, E = 210 000 MPa, nu = 0.3, curve "elastic", perfect
 // geometry, no residual stresses, three load-control steps of 0.1 Mp.
 //
 // Reference: Timoshenko beam theory, cantilever with a tip load P (Timoshenko & Gere, "Mechanics
 // of Materials", the shear-deflection term P L / (G A_v); from memory):
-//   delta = P L^3 / (3 E I) + P L / (G A_v),   theta = delta / L (interface.md), M = P L, so
+//   delta = P L^3 / (3 E I) + P L / (G A_v),   theta = delta / L (docs/spec/interface.md), M = P L, so
 //   theta / M = L / (3 E I) + 1 / (L G A_v),
 // with I = Iy of the centre-line plate model (i_section.hpp) and the web shear area of the plate
 // model A_v = (h - tf) tw, G = E / (2 (1 + nu)). The computed theta_p (summary theta_p_mrad, from the
@@ -27,7 +27,7 @@ TEST(HingeElasticCantilever, InitialSlopeMatchesTimoshenkoBeamWithShear) {
   const HingeRun run = run_rotcap("run", hinge_case("elastic_cantilever.toml"), "elastic_cantilever");
   ASSERT_EQ(run.exit_code, 0) << run.err;
   const nlohmann::json s = read_json(run.results / "summary.json");
-  // Plate-model properties in closed form (the plates of the case; references.md section 7).
+  // Plate-model properties in closed form (the plates of the case; docs/spec/references.md section 7).
   const double h = 300.0, b = 150.0, tf = 10.7, tw = 7.1, L = 3000.0, E = 210000.0, nu = 0.3, fy = 355.0;
   const double hw = h - tf;
   const double I = 2.0 * (b * tf * tf * tf / 12.0 + b * tf * 0.25 * hw * hw) + tw * hw * hw * hw / 12.0;

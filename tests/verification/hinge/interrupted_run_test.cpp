@@ -1,5 +1,5 @@
 // Hinge verification 6: a run stopped by a step that does not converge keeps consistent results
-// (interface.md: exit code 3, "a run that stops early ... still leaves every file consistent and
+// (docs/spec/interface.md: exit code 3, "a run that stops early ... still leaves every file consistent and
 // readable, holding all converged steps").
 //
 // Case tests/data/hinge/interrupted.toml: HEB 300 cantilever, L = 1200 mm, elastic-perfectly

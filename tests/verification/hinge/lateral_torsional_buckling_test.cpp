@@ -15,7 +15,7 @@
 //    M^2 / (E^2 I_z I_w) = 0; the symmetric mode needs
 //      beta sin(beta L/2) cosh(alpha L/2) + alpha sinh(alpha L/2) cos(beta L/2) = 0,
 //    whose lowest root M is M_cr (our derivation, solved by bisection below);
-//  - the NCCI SN003 formula with C1 = 1, k = 1, k_w = 0.5 (references.md section 3, CONFIRMED
+//  - the NCCI SN003 formula with C1 = 1, k = 1, k_w = 0.5 (docs/spec/references.md section 3, CONFIRMED
 //    structure; C1 from memory), as the brief asked:
 //      M_cr = (pi^2 E I_z / L^2) sqrt((k / k_w)^2 I_w / I_z + L^2 G I_t / (pi^2 E I_z)).
 //    It is an approximation for warping-fixed ends: for I_t -> 0 it gives (pi sqrt 2 / L)^2 in
@@ -133,7 +133,7 @@ void check_ltb(const std::string& file, double L) {
   print_comparison("M_cr [kNm] vs the exact warping-fixed solution", exact, mcr[0],
                    "Vlasov equation, Timoshenko & Gere 1961 ch. 6, from memory; phi = phi' = 0 at the ends");
   print_comparison("M_cr [kNm] vs NCCI SN003, C1 = 1, k = 1, k_w = 0.5 (for information)", ncci, mcr[0],
-                   "NCCI SN003 eq. (1), references.md 3");
+                   "NCCI SN003 eq. (1), docs/spec/references.md 3");
   std::printf("NCCI formula vs the exact solution: %+.2f %%\n", 100.0 * (ncci - exact) / exact);
   EXPECT_CLOSE(mcr[0], exact, 0.06, 0.0);
   EXPECT_LT(ncci, mcr[0]);

@@ -1,7 +1,7 @@
 // Hinge verification 4: local buckling caps the hinge of a class 4 section; a class 1 section
 // with strain hardening passes Mp and rotates.
 //
-// EN 1993-1-1 Table 5.2 (references.md section 4): outstand flange in compression, class 1 / 2 / 3
+// EN 1993-1-1 Table 5.2 (docs/spec/references.md section 4): outstand flange in compression, class 1 / 2 / 3
 // limits c/t <= 9 eps / 10 eps / 14 eps, eps = sqrt(235 / fy).
 //  a. class4_flange.toml: an invented welded section (h 300, b 300, tf 8, tw 8 mm; not a catalogue
 //     section), S355: c/t = (b - tw) / 2 / tf = 18.25 > 14 eps = 11.39, class 4; under uniform

@@ -1,7 +1,7 @@
 // Hinge verification 3: a stocky, laterally restrained section of elastic-perfectly plastic steel
 // reaches the plastic moment of the plate model and holds it, without local buckling.
 //
-// Section HEB 300 as plates (h 300, b 300, tf 19, tw 11 mm; references.md section 7), S235, class 1
+// Section HEB 300 as plates (h 300, b 300, tf 19, tw 11 mm; docs/spec/references.md section 7), S235, class 1
 // (EN 1993-1-1 Table 5.2: flange c/t 6.18 <= 9 eps, web 18.9 <= 72 eps). Reference:
 //   Mp = fy Wpl,y, Wpl,y = b tf (h - tf) + tw (h - tf)^2 / 4 (plate model, i_section.hpp; the
 //   rectangular stress blocks of simple plastic theory, e.g. Neal, "The plastic methods of
@@ -109,7 +109,7 @@ namespace {
 // The same cantilever with `support = "symmetry"`: the support section is a symmetry plane (ux, ry,
 // rz held at every node, the web line holding uy and uz) and the flanges contract freely. The band
 // [0.98, 1.02] Mp is checked up to 4 theta_p, the rotation a plastic hinge with R = 3 must supply
-// (common practice, see references.md section 6); beyond it the elastic-perfectly plastic flanges,
+// (common practice, see docs/spec/references.md section 6); beyond it the elastic-perfectly plastic flanges,
 // free at the support, begin to buckle plastically (zero tangent modulus) and the moment declines
 // slowly (measured: 0.974 Mp at 4.7 theta_p), which is printed, not asserted.
 TEST(HingePlasticMoment, CantileverOnASymmetryPlaneReachesAndHoldsMpTo4ThetaP) {

@@ -5,7 +5,7 @@
 // [residual_stress] pattern = "hot_rolled", one load step of 0.1 Mp.
 //
 // References:
-//  - ECCS TC8 Publ. No. 33 (1984) hot-rolled pattern (references.md section 4, from memory):
+//  - ECCS TC8 Publ. No. 33 (1984) hot-rolled pattern (docs/spec/references.md section 4, from memory):
 //    h/b = 300/150 = 2 > 1.2, so the amplitude is 0.3 fy = 106.5 MPa, tension and compression;
 //  - the pattern is self-equilibrating (zero axial force and moments over the section): the
 //    summary's relative_imbalance is zero to round-off;

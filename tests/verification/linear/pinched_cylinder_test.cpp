@@ -1,7 +1,7 @@
 // Pinched cylinder with rigid end diaphragms: the bending-dominated, inextensional case of the
 // linear shell "obstacle course" (Belytschko, Stolarski, Liu, Carpenter & Ong 1985, "Stress
 // projection for membrane and shear locking in shell finite elements", CMAME 51, 221-258).
-// All problem data and the reference value are FROM MEMORY (widely quoted; rotcap references.md
+// All problem data and the reference value are FROM MEMORY (widely quoted; docs/spec/references.md
 // sec. 1, status MEMORY).
 //
 // Geometry (from memory): radius R = 300, length L = 600, thickness t = 3; E = 3.0e6, nu = 0.3;
@@ -32,7 +32,7 @@ namespace {
 constexpr double kPi = std::numbers::pi;
 constexpr double kRadius = 300.0, kLength = 600.0, kThickness = 3.0, kE = 3.0e6, kNu = 0.3, kLoad = 1.0;
 // Radial displacement under the load, series solution quoted by Belytschko et al. (1985),
-// FROM MEMORY (references.md sec. 1).
+// FROM MEMORY (docs/spec/references.md sec. 1).
 constexpr double kReference = 1.8248e-5;
 
 // Mesh n x n over the octant: i along x (0 .. L/2), j along theta (0 .. 90 deg).

@@ -1,7 +1,7 @@
 // Pinched hemisphere with an 18 degree hole: doubly curved, nearly inextensional bending with
 // rigid-body rotation of the elements (MacNeal & Harder 1985, "A proposed standard set of
 // problems to test finite element accuracy", FEAD 1, 3-20). All problem data and both reference
-// values are FROM MEMORY (widely quoted; rotcap references.md sec. 1, status MEMORY; the load
+// values are FROM MEMORY (widely quoted; docs/spec/references.md sec. 1, status MEMORY; the load
 // convention is marked low confidence there).
 //
 // Geometry (from memory): radius R = 10, thickness t = 0.04, E = 6.825e7, nu = 0.3; a polar hole
@@ -34,7 +34,7 @@ constexpr double kPi = std::numbers::pi;
 constexpr double kRadius = 10.0, kThickness = 0.04, kE = 6.825e7, kNu = 0.3, kTopLatitude = 72.0 * kPi / 180.0;
 // Radial displacement at a loaded point: 0.094 (MacNeal & Harder 1985, with the hole); 0.0924 is
 // the value commonly used for the closed (no-hole) obstacle-course version. Both FROM MEMORY
-// (references.md sec. 1).
+// (docs/spec/references.md sec. 1).
 constexpr double kReference = 0.094, kClosedHemisphereValue = 0.0924;
 
 // Mesh n x n over the quarter: i along longitude (0 .. 90 deg), j along latitude (0 .. 72 deg).

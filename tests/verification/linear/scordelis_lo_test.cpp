@@ -2,14 +2,14 @@
 // course". Problem and reference value: MacNeal & Harder (1985), "A proposed standard set of
 // problems to test finite element accuracy", FEAD 1, 3-20, and Belytschko, Stolarski, Liu,
 // Carpenter & Ong (1985), CMAME 51, 221-258. All numbers FROM MEMORY (widely quoted;
-// rotcap references.md sec. 1, status MEMORY).
+// docs/spec/references.md sec. 1, status MEMORY).
 //
 // Geometry (from memory): cylindrical roof, radius R = 25, length L = 50, half-angle 40 deg,
 // thickness t = 0.25; E = 4.32e8, nu = 0; self-weight 90 per unit area, vertical.
-// Axes (ours, as in references.md): cylinder axis along x, z vertical up; a point at angle theta
+// Axes (ours, as in docs/spec/references.md): cylinder axis along x, z vertical up; a point at angle theta
 // from the crown is (x, R sin theta, R cos theta). Quarter model 0 <= x <= L/2, 0 <= theta <= 40:
 //   x = L/2  (curved end on the rigid diaphragm):  uy = uz = 0 (in the diaphragm plane); ux and
-//            the rotations free (references.md: "u_x and rotations free");
+//            the rotations free (docs/spec/references.md: "u_x and rotations free");
 //   x = 0    (symmetry, mid-span):                 ux = 0, ry = rz = 0;
 //   theta = 0 (symmetry, crown line y = 0):        uy = 0, rx = rz = 0;
 //   theta = 40 deg (straight edge):                free.
@@ -33,7 +33,7 @@ constexpr double kRadius = 25.0, kLength = 50.0, kThickness = 0.25, kHalfAngle =
 constexpr double kE = 4.32e8, kNu = 0.0, kWeight = 90.0;
 // Vertical displacement at the middle of the free edge: 0.3024, the normalising value of
 // Belytschko et al. (1985) and most later papers; MacNeal & Harder (1985) quote 0.3086.
-// Both FROM MEMORY (references.md sec. 1).
+// Both FROM MEMORY (docs/spec/references.md sec. 1).
 constexpr double kReference = 0.3024, kMacNealHarderValue = 0.3086;
 
 // Mesh n x n over the quarter: i along x (0 .. L/2), j along theta (0 .. 40 deg).

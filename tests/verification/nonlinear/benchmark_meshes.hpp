@@ -12,7 +12,7 @@
 // Geometry, material and supports of the benchmarks: K.Y. Sze, X.H. Liu, S.H. Lo, "Popular
 // benchmark problems for geometric nonlinear analysis of shells", Finite Elements in Analysis and
 // Design 40 (2004) 1551-1569. The problem data were not read in the paper; they are from memory,
-// as listed in /work/shared/references.md section 2.
+// as listed in docs/spec/references.md section 2.
 
 #include "model/shell_model.hpp"
 

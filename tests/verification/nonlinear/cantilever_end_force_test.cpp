@@ -3,11 +3,11 @@
 //
 // Problem: K.Y. Sze, X.H. Liu, S.H. Lo, "Popular benchmark problems for geometric nonlinear
 // analysis of shells", FEAD 40 (2004) 1551-1569, "cantilever subjected to end shear force". Data
-// from memory (references.md 2.1): L = 10, b = 1, t = 0.1, E = 1.2e6, nu = 0, clamped at x = 0, a
+// from memory (docs/spec/references.md 2.1): L = 10, b = 1, t = 0.1, E = 1.2e6, nu = 0, clamped at x = 0, a
 // force P along z at the free end that keeps its direction; E I = 100, so the load parameter
 // P L^2 / E I equals P, P_max = 4.
 // Reference: the inextensible elastica E I theta'' + P cos(theta) = 0, theta(0) = 0, theta'(L) = 0,
-// solved by shooting with RK4 (references.md 2.1, DERIVED; re-computed for this test with 4000
+// solved by shooting with RK4 (docs/spec/references.md 2.1, DERIVED; re-computed for this test with 4000
 // RK4 steps, same values to the digits given). With nu = 0 and L / t = 100 the shell differs from
 // the elastica only by shear and membrane strains of order (t/L)^2 and P/(E A) = 3e-5.
 // Error measure: relative error of the tip deflection W (along P) and of the shortening -U, at
@@ -27,7 +27,7 @@ constexpr double kLength = 10.0, kWidth = 1.0, kThickness = 0.1, kE = 1.2e6;
 constexpr int kElements = 16;
 
 struct ElasticaPoint {
-  double P, W, shortening, rotation;  // DERIVED, references.md 2.1
+  double P, W, shortening, rotation;  // DERIVED, docs/spec/references.md 2.1
 };
 constexpr ElasticaPoint kElastica[] = {
     {1.0, 3.017, 0.564, 0.4614}, {2.0, 4.935, 1.606, 0.7817}, {3.0, 6.033, 2.544, 0.9860}, {4.0, 6.700, 3.289, 1.1212}};

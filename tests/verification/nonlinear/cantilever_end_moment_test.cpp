@@ -3,9 +3,9 @@
 //
 // Problem: K.Y. Sze, X.H. Liu, S.H. Lo, "Popular benchmark problems for geometric nonlinear
 // analysis of shells", FEAD 40 (2004) 1551-1569, "cantilever subjected to end moment". Data from
-// memory (references.md 2.2): L = 12, b = 1, t = 0.1, E = 1.2e6, nu = 0, clamped at x = 0, end moment
+// memory (docs/spec/references.md 2.2): L = 12, b = 1, t = 0.1, E = 1.2e6, nu = 0, clamped at x = 0, end moment
 // M = lambda M_max with M_max = 2 pi E I / L = 50 pi / 3 (E I = E b t^3 / 12 = 100).
-// Reference: the analytical solution quoted by Sze et al. (DERIVED in references.md 2.2): under a
+// Reference: the analytical solution quoted by Sze et al. (DERIVED in docs/spec/references.md 2.2): under a
 // constant moment the strip bends into an arc of radius E I / M = L / (2 pi lambda), so with
 // theta = 2 pi lambda the tip moves by U = L (sin(theta)/theta - 1), W = L (1 - cos(theta))/theta.
 // Error measure: distance of the computed tip (mean of the two tip nodes) from the analytical tip,

@@ -3,7 +3,7 @@
 //
 // Problem: K.Y. Sze, X.H. Liu, S.H. Lo, "Popular benchmark problems for geometric nonlinear
 // analysis of shells", FEAD 40 (2004) 1551-1569, "hemispherical shell subjected to alternating
-// radial forces". Data from memory (references.md 2.4): R = 10, t = 0.04, E = 6.825e7, nu = 0.3,
+// radial forces". Data from memory (docs/spec/references.md 2.4): R = 10, t = 0.04, E = 6.825e7, nu = 0.3,
 // P_max = 400; the forces act in pairs, inward at A (on the x axis) and outward at B (on the y axis),
 // the polar hole's edge and the equator are free. Quarter model with symmetry planes, n x n
 // elements; each loaded point lies on a symmetry plane, so the quarter model carries half of the

@@ -3,13 +3,13 @@
 //
 // Problem: K.Y. Sze, X.H. Liu, S.H. Lo, "Popular benchmark problems for geometric nonlinear
 // analysis of shells", FEAD 40 (2004) 1551-1569, "hinged cylindrical roof". Data from memory
-// (references.md 2.6): R = 2540 mm, axial length 508 mm, half-angle 0.1 rad, t = 6.35 mm,
+// (docs/spec/references.md 2.6): R = 2540 mm, axial length 508 mm, half-angle 0.1 rad, t = 6.35 mm,
 // E = 3102.75 MPa, nu = 0.3, straight edges hinged, curved edges free, central load up to
 // P_max = 750 N. Quarter model (symmetric deformation), 8 x 8 elements; the limit loads are
 // printed again for a 12 x 12 quarter (mesh convergence, reported).
 // What is tested: the arc-length driver passes the first limit point (the tangent gets a negative
 // pivot), the snap-back, and the second limit point (the negative pivot disappears again) up to
-// P_max. The limit loads are printed beside the values in references.md, which are from memory
+// P_max. The limit loads are printed beside the values in docs/spec/references.md, which are from memory
 // and of low confidence ("snap-through and snap-back, limit about 0.6 kN"): reported, not pass/fail.
 
 #include "tests/test_support.hpp"
@@ -114,7 +114,7 @@ TEST(HingedRoofVerification, ArcLengthPassesBothLimitPointsAndTheSnapBack) {
   for (std::size_t k = 1; k < path.size(); ++k) snapped_back |= path[k].w < path[k - 1].w - 1e-3;
   EXPECT_TRUE(snapped_back);
   const Limits l = limits_of(path);
-  std::printf("  8 x 8 quarter: first limit load %.1f N at w %.2f mm (references.md, from memory: about 600 N); "
+  std::printf("  8 x 8 quarter: first limit load %.1f N at w %.2f mm (docs/spec/references.md, from memory: about 600 N); "
               "second limit %.1f N; deflection turns back at w %.2f mm; w at P_max %.2f mm\n",
               l.first, l.w_first, l.second, l.w_back, path.back().w);
   std::printf("  %d steps, %d iterations (%.2f per step), %d cut-backs\n", run.record.summary.steps,

@@ -3,7 +3,7 @@
 //
 // Usage: nonlinear_run_check FOLDER CASE.toml [--stop-reason=S] [--min-cutbacks=N]
 //                            [--last=COLUMN=VALUE,REL] [--group-means]
-// Always checked (the "consistent partial results" contract of interface.md):
+// Always checked (the "consistent partial results" contract of docs/spec/interface.md):
 //  - summary.json parses, has a string stop_reason and solver.steps / cutbacks / iterations;
 //  - curve.csv has one row per converged step plus the unloaded row (rows = solver.steps + 1), its
 //    step column counting 0, 1, ..., steps;

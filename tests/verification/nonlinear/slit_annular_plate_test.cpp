@@ -3,7 +3,7 @@
 //
 // Problem: K.Y. Sze, X.H. Liu, S.H. Lo, "Popular benchmark problems for geometric nonlinear
 // analysis of shells", FEAD 40 (2004) 1551-1569, "slit annular plate subjected to lifting line
-// force". Data from memory (references.md 2.3): inner radius 6, outer radius 10, t = 0.03,
+// force". Data from memory (docs/spec/references.md 2.3): inner radius 6, outer radius 10, t = 0.03,
 // E = 21e6, nu = 0; one slit edge clamped, the other lifted by a line force q (per unit length,
 // out of plane), q_max = 0.8, i.e. 3.2 in total over the edge.
 // Reference (from memory, low confidence): the transverse deflections of the loaded edge at

@@ -1,11 +1,11 @@
 // Initial (residual) stresses in a structural model: a cantilever I-beam hinge zone (hinge-zone
 // mesher: fixed support section, rigid end section tied to a reference node), IPE 200 plate
-// dimensions (h 200, b 100, tf 8.5, tw 5.6 mm; references.md section 7), S355, 5 layers, with
+// dimensions (h 200, b 100, tf 8.5, tw 5.6 mm; docs/spec/references.md section 7), S355, 5 layers, with
 // LayerState::initial_stress set through ShellProblem::set_initial_stress.
 //
 // 1. Self-equilibrated patterns give zero internal force at zero displacement, to round-off:
 //    (a) over the section, an ECCS-shaped flange pattern (ECCS 1984, Publ. 33, from memory,
-//        references.md section 4): sigma_xx = s (1 - 4 |y| / b), +s at the web junction, -s at the
+//        docs/spec/references.md section 4): sigma_xx = s (1 - 4 |y| / b), +s at the web junction, -s at the
 //        tips, s = 0.3 fy, the web unstressed: each flange's mean is zero, so N = My = Mz = 0 over
 //        the section; it is uniform along x (d sigma_xx / dx = 0: in-plane equilibrium) and piecewise
 //        linear in y with its kink on the junction node line; the fully fixed support takes the
