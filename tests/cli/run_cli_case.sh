@@ -9,6 +9,7 @@
 #   --exit N              the exit code is N (default 0)
 #   --stderr REGEX        stderr matches the extended regular expression (grep -E)
 #   --stdout REGEX        stdout matches it
+#   --stdout-not REGEX    no line of stdout matches it
 #   --no-output           DIR/results does not exist after the run (no partial results folder)
 #   --seed-output         DIR/results is created before the run holding a user file (notes.txt)
 #                         and old results (curve.csv, fields/step_0001.vtu)
@@ -19,7 +20,7 @@
 # Prints what it ran and every failed check; exits 0 when all checks pass, 1 otherwise.
 set -u
 
-rotcap="" scratch="" expect_exit=0 stderr_re="" stdout_re="" no_output=0 seed=0 unchanged=0
+rotcap="" scratch="" expect_exit=0 stderr_re="" stdout_re="" stdout_not_re="" no_output=0 seed=0 unchanged=0
 expect_files=() match_files=() match_res=()
 while [[ $# -gt 0 ]]; do
   case "$1" in
@@ -28,6 +29,7 @@ while [[ $# -gt 0 ]]; do
     --exit) expect_exit="$2"; shift 2 ;;
     --stderr) stderr_re="$2"; shift 2 ;;
     --stdout) stdout_re="$2"; shift 2 ;;
+    --stdout-not) stdout_not_re="$2"; shift 2 ;;
     --no-output) no_output=1; shift ;;
     --seed-output) seed=1; shift ;;
     --unchanged) unchanged=1; shift ;;
@@ -72,6 +74,9 @@ fail() { echo "FAILED: $*"; failed=1; }
 [[ $code -eq $expect_exit ]] || fail "exit code $code, expected $expect_exit"
 if [[ -n "$stderr_re" ]] && ! grep -Eq -- "$stderr_re" "$scratch/stderr.txt"; then
   fail "stderr does not match /$stderr_re/"
+fi
+if [[ -n "$stdout_not_re" ]] && grep -Eq -- "$stdout_not_re" "$scratch/stdout.txt"; then
+  fail "stdout matches /$stdout_not_re/, which it must not"
 fi
 if [[ -n "$stdout_re" ]] && ! grep -Eq -- "$stdout_re" "$scratch/stdout.txt"; then
   echo "stdout:"; cat "$scratch/stdout.txt"

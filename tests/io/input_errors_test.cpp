@@ -250,6 +250,9 @@ TEST(InputErrors, OtherCaseFileRulesNameTheirKeys) {
   const CaseInput edge_thickness = general(general_text() + "[[thickness]]\ngroup = \"tip\"\nvalue = 3.0\n");
   expect_input_error([&] { build_general_model(edge_thickness); },
                      {"thickness[0].group: found \"tip\", a Physical Curve; expected a Physical Surface"});
+  // The key's earlier name is an error that names the new one.
+  expect_input_error([] { general(general_text() + "[analysis]\nmonitor = []\n"); },
+                     {"analysis.monitor: found", "record_dofs"});
   const CaseInput bad_monitor = general(general_text() + "[analysis]\nrecord_dofs = [{ group = \"tipp\", dof = \"uz\" }]\n");
   expect_input_error([&] { build_general_model(bad_monitor); },
                      {"analysis.record_dofs[0].group: found \"tipp\"", "did you mean \"tip\"?"});
