@@ -72,12 +72,14 @@ int command_buckling(const CommandOptions& options) {
              std::to_string(result.sturm.shift) + ", " + std::to_string(result.sturm.modes_below_shift) +
              " found" + (result.sturm.passed() ? " (passed)" : " (MISMATCH: a mode may be missing)"));
   log_info("modes in " + (folder / "modes.pvd").string());
-  close_log_file();
+  // The outcome goes to run.log too (the log file is closed last).
+  int code = kExitOk;
   if (!result.ok()) {
     log_error(result.message);
-    return result.status == BucklingStatus::NoPositiveModes ? kExitOk : kExitStoppedEarly;
+    code = result.status == BucklingStatus::NoPositiveModes ? kExitOk : kExitStoppedEarly;
   }
-  return kExitOk;
+  close_log_file();
+  return code;
 }
 
 }  // namespace rotcap::app

@@ -18,6 +18,7 @@ const char* buckling_status_name(BucklingStatus status) {
     case BucklingStatus::NoPositiveModes: return "NoPositiveModes";
     case BucklingStatus::SturmMismatch: return "SturmMismatch";
     case BucklingStatus::SturmFactorFailed: return "SturmFactorFailed";
+    case BucklingStatus::EigenSolverFailed: return "EigenSolverFailed";
   }
   return "Unknown";
 }
@@ -148,18 +149,42 @@ BucklingResult solve_linear_buckling(const ShellModel& model, const SectionAssig
     return result;
   }
 
-  // 3. (-Kg) phi = mu K phi, largest algebraic mu (Spectra, RegularInverse mode).
+  // 3. (-Kg) phi = mu K phi, largest algebraic mu (Spectra, RegularInverse mode). A load that
+  // leaves (almost) no membrane forces (a plate loaded across its plane) has Kg = 0 to round-off:
+  // every mu is 0, the Krylov basis collapses, and no load factor exists.
   const auto start = std::chrono::steady_clock::now();
   const std::vector<double>& k = system.stiffness_values();
+  double k_max = 0.0, kg_max = 0.0;
+  for (double v : k) k_max = std::max(k_max, std::abs(v));
+  for (double v : kg) kg_max = std::max(kg_max, std::abs(v));
+  if (!(kg_max > 1e-12 * k_max)) {
+    result.status = BucklingStatus::NoPositiveModes;
+    result.message = fmt::format("the reference load leaves no membrane forces (largest |Kg| = {:.3g} x largest |K|): "
+                                 "it cannot buckle the model, so there is no buckling load factor",
+                                 k_max > 0.0 ? kg_max / k_max : 0.0);
+    return result;
+  }
   NegatedSymmetricProduct a_op(system.pattern(), kg);
   StiffnessOperator b_op(system.pattern(), k, system.stiffness_factor());
   const int ncv = options.basis_size > 0 ? std::min(options.basis_size, n)
                                          : std::min(std::max(2 * n_modes + 1, 20), n);
   Spectra::SymGEigsSolver<NegatedSymmetricProduct, StiffnessOperator, Spectra::GEigsMode::RegularInverse> eigs(
       a_op, b_op, n_modes, ncv);
-  eigs.init();
-  const Eigen::Index converged = eigs.compute(Spectra::SortRule::LargestAlge, options.max_iterations,
-                                              options.tolerance, Spectra::SortRule::LargestAlge);
+  // Spectra reports a breakdown of its dense sub-problems by throwing (e.g. "TridiagEigen: eigen
+  // decomposition failed"): a numerical outcome of this model, returned as a status.
+  Eigen::Index converged = 0;
+  try {
+    eigs.init();
+    converged = eigs.compute(Spectra::SortRule::LargestAlge, options.max_iterations, options.tolerance,
+                             Spectra::SortRule::LargestAlge);
+  } catch (const std::exception& e) {
+    result.status = BucklingStatus::EigenSolverFailed;
+    result.message = std::string("the eigen solver broke down (") + e.what() +
+                     "); try another number of modes ([buckling] modes or -n), or check that the reference "
+                     "load compresses the model";
+    result.eigen_seconds = seconds_since(start);
+    return result;
+  }
   result.iterations = static_cast<int>(eigs.num_iterations());
   result.operations = static_cast<int>(eigs.num_operations());
   const bool all_converged = eigs.info() == Spectra::CompInfo::Successful;

@@ -44,7 +44,8 @@ enum class BucklingStatus {
   NotConverged,        ///< Spectra did not converge; load_factors holds what had converged
   NoPositiveModes,     ///< fewer positive load factors than requested (the load cannot buckle the model)
   SturmMismatch,       ///< the inertia count disagrees with the modes found: a mode was missed
-  SturmFactorFailed    ///< K + s Kg had a zero pivot; the check could not be made
+  SturmFactorFailed,   ///< K + s Kg had a zero pivot; the check could not be made
+  EigenSolverFailed    ///< the Lanczos iteration broke down (Spectra threw); nothing was found
 };
 const char* buckling_status_name(BucklingStatus status);
 
