@@ -56,6 +56,21 @@ int main(int argc, char** argv) {
   CLI::App* report = cli.add_subcommand("report", "re-make curve.svg, hinge_law.csv and report.html of a results folder");
   report->add_option("DIR", o.case_file, "results folder of `rotcap run`")->required();
   report->add_flag("--quiet", o.quiet, "print warnings and errors only");
+  // A first word that is no command and no option: name it and list the commands (CLI11 would say
+  // only that a subcommand is required).
+  if (argc > 1 && argv[1][0] != '-') {
+    std::string commands;
+    bool known = false;
+    for (const CLI::App* sub : cli.get_subcommands({})) {
+      known = known || sub->get_name() == argv[1];
+      commands += (commands.empty() ? "" : ", ") + sub->get_name();
+    }
+    if (!known) {
+      std::cerr << "rotcap: error: unknown command '" << argv[1] << "'; expected one of " << commands
+                << (std::string(argv[1]) == "buckle" ? " (buckle is now buckling)" : "") << " (rotcap --help)\n";
+      return kExitBadInput;
+    }
+  }
   try {
     cli.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

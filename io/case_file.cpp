@@ -9,6 +9,8 @@
 #include "model/setups/loading_setup.hpp"
 #include "model/section/section_table.hpp"
 
+#include <cctype>
+#include <cmath>
 #include <fstream>
 #include <stdexcept>
 #include <sstream>
@@ -118,6 +120,7 @@ void read_steel(TableReader r, CaseInput& c) {
                      (r.has("curve") ? "" : " (the default; curve = \"elastic\" needs no fy)"));
   const bool needs_fu = s.kind == SteelCurveKind::bilinear || s.kind == SteelCurveKind::quadlinear;
   if (needs_fu && !fu) r.fail("fu", "no value", "the tensile strength fu [MPa] for curve = " + curve);
+  if (!needs_fu) r.forbid("fu", "no fu with curve = " + curve + " (it does not use it; bilinear and quadlinear do)");
   if (s.kind == SteelCurveKind::bilinear)
     s.hardening_modulus = r.required_number("hardening_modulus",
                                             "the hardening modulus E_h [MPa] for curve = \"bilinear\"");
@@ -127,7 +130,11 @@ void read_steel(TableReader r, CaseInput& c) {
     read_steel_table(r, s);
   else
     r.forbid("table", "no table with curve = " + curve + " (curve = \"table\" only)");
-  // A table defines its own yield stress (its first row); fu is only read by curves that use it.
+  // A table defines its own yield stress (its first row); fy, when given too, must agree with it
+  // (fy sets Mp and the class, the table the material: two different yield stresses would mix).
+  if (fy && s.kind == SteelCurveKind::table && std::abs(s.table.front()[0] - *fy) > 0.005 * *fy)
+    r.fail("table", "a first stress of " + format_number(s.table.front()[0]) + " MPa",
+           "the yield stress fy = " + format_number(*fy) + " MPa (within 0.5 %) as the table's first row, or no fy");
   if (fy)
     s.fy = *fy;
   else if (s.kind == SteelCurveKind::table)
@@ -350,6 +357,8 @@ int line_of_path(const toml::table& table, std::string path) {
 /// InputError at the key's line.
 void validate_components(const toml::table& table, CaseInput& c) {
   try {
+    // A unit slip first (fy in Pa, E in GPa): its message says more than the rule it breaks next.
+    if (c.kind == ModelKind::generated) require_structural_steel_values(c.steel);
     validate(c.steel);
     c.layers.validate();
     c.analysis.path.validate();
@@ -360,6 +369,28 @@ void validate_components(const toml::table& table, CaseInput& c) {
   } catch (const OptionError& e) {
     throw InputError(c.file, line_of_path(table, e.key()), e.key(), e.found(), e.expected());
   }
+}
+
+/// " (a text value needs quotes: key = \"...\")" when the line of a syntax error reads key = word...
+/// with an unquoted word (toml++ then reports a malformed number); "" otherwise.
+std::string unquoted_text_hint(std::string_view text, int line) {
+  std::size_t start = 0;
+  for (int l = 1; l < line && start != std::string_view::npos; ++l) {
+    start = text.find('\n', start);
+    if (start != std::string_view::npos) ++start;
+  }
+  if (start == std::string_view::npos || line < 1) return "";
+  const std::string_view row = text.substr(start, text.find('\n', start) - start);
+  const std::size_t eq = row.find('=');
+  if (eq == std::string_view::npos) return "";
+  const std::size_t v = row.find_first_not_of(" \t", eq + 1);
+  if (v == std::string_view::npos || !std::isalpha(static_cast<unsigned char>(row[v]))) return "";
+  const std::string_view value = row.substr(v);
+  for (const char* word : {"true", "false", "inf", "nan"})
+    if (value.rfind(word, 0) == 0) return "";
+  const std::string key(row.substr(0, row.find_last_not_of(" \t", eq - 1) + 1));
+  return "; a text value needs quotes: " + key + " = \"" + std::string(value.substr(0, value.find_first_of("#\r"))) +
+         "\"";
 }
 
 }  // namespace
@@ -382,9 +413,9 @@ CaseInput parse_case_text(std::string_view text, const std::filesystem::path& fi
   try {
     table = toml::parse(text, file.string());
   } catch (const toml::parse_error& e) {
-    throw InputError(file, static_cast<int>(e.source().begin.line), "",
-                     "a TOML syntax error: " + std::string(e.description()),
-                     "valid TOML (https://toml.io/en/v1.0.0)");
+    const int line = static_cast<int>(e.source().begin.line);
+    throw InputError(file, line, "", "a TOML syntax error: " + std::string(e.description()),
+                     "valid TOML (https://toml.io/en/v1.0.0)" + unquoted_text_hint(text, line));
   }
   return detail::parse_case_table(table, file);
 }

@@ -72,7 +72,8 @@ void read_analysis(TableReader& r, CaseInput& c) {
   read_stopping(r, a);
   if (generated) {
     a.max_rotation = r.number("max_rotation", a.max_rotation);
-    r.check("max_rotation", a.max_rotation, a.max_rotation > 0.0, "max_rotation > 0 [rad]");
+    r.check("max_rotation", a.max_rotation, a.max_rotation > 0.0 && a.max_rotation <= 1.0,
+            "0 < max_rotation <= 1 [rad] (a hinge rotation in radians: 0.15 = 150 mrad)");
     for (const char* key : {"max_load_factor", "control_dof", "max_displacement", "record_dofs"})
       r.forbid(key, "it only in general models ([model]); generated models are controlled by "
                     "their load point and stop at max_rotation");

@@ -113,6 +113,19 @@ void validate(const SteelModel& s, const SteelCurveOptions& options) {
   }
 }
 
+void require_structural_steel_values(const SteelModel& s) {
+  const auto within = [](const char* key, double v, double lo, double hi, const char* what) {
+    if (!(v >= lo && v <= hi))
+      throw OptionError(key, format_number(v),
+                        std::string(what) + " of a structural steel in MPa (N/mm2), " + format_number(lo) +
+                            " to " + format_number(hi) + " (a value far outside is usually given in other units)");
+  };
+  within("steel.E", s.E, 150000.0, 250000.0, "a Young's modulus");
+  within("steel.fy", s.fy, 100.0, 1500.0, "a yield strength");
+  if (s.kind == SteelCurveKind::bilinear || s.kind == SteelCurveKind::quadlinear)
+    within("steel.fu", s.fu, 150.0, 2000.0, "a tensile strength");
+}
+
 bool has_yield(const SteelModel& steel) { return steel.kind != SteelCurveKind::elastic; }
 
 std::vector<EngineeringPoint> engineering_curve(const SteelModel& s) {

@@ -87,6 +87,13 @@ QuadlinearParameters yun_gardner_quadlinear(double E, double fy, double fu);
 /// combination no single key owns (quad-linear strains, conversion limits, a non-finite table row).
 void validate(const SteelModel& steel, const SteelCurveOptions& options = {});
 
+/// Plausibility in the case file's units (MPa) for a structural steel, beyond validate(): 150000 <=
+/// E <= 250000, 100 <= fy <= 1500, 150 <= fu <= 2000 (fu where the curve uses it). Values outside are
+/// almost always a unit slip (Pa, kN/cm2); throws OptionError naming the key, the value and the
+/// units expected. For models of steel I-beams (generated models); general models may hold any
+/// elastic material in consistent units.
+void require_structural_steel_values(const SteelModel& steel);
+
 /// True unless kind is elastic.
 bool has_yield(const SteelModel& steel);
 

@@ -33,6 +33,9 @@ void validate(const HingeZoneSpec& s) {
   validate(s.section);
   const double L = s.length;
   if (!(L > 0.0) || !std::isfinite(L)) reject("member.length", num(L) + " mm", "a finite length > 0");
+  if (!(L >= s.section.h))
+    reject("member.length", num(L) + " mm",
+           "a member at least as long as its depth h = " + num(s.section.h) + " mm (lengths are in mm)");
   require_yield_strength(s.fy);
   if (s.flange_elements < 4 || s.flange_elements % 2 != 0)
     reject("mesh.flange_elements", std::to_string(s.flange_elements),

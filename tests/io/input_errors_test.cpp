@@ -277,5 +277,31 @@ TEST(InputErrors, MisspeltRequiredKeyIsNamedNotReportedMissing) {
     EXPECT_EQ(e.line(), 11);
   }
 }
+TEST(InputErrors, ImplausibleValuesInTheFilesUnitsNameTheUnitsExpected) {
+  // A yield strength in Pa, a modulus in GPa, a length in m, a rotation in mrad: each a unit slip.
+  expect_input_error([] { generated(replaced(kGenerated, "fy = 355", "fy = 355e6")); },
+                     {"beam.toml:7: steel.fy: found 355000000", "in MPa (N/mm2)"});
+  expect_input_error([] { generated(replaced(kGenerated, "[steel]", "[steel]\nE = 210")); },
+                     {"steel.E: found 210", "Young's modulus"});
+  expect_input_error([] { generated(replaced(kGenerated, "length = 1500", "length = 3")); },
+                     {"beam.toml:11: member.length: found 3 mm", "at least as long as its depth h = 300 mm"});
+  expect_input_error([] { generated(replaced(kGenerated, "max_steps = 100", "max_rotation = 15")); },
+                     {"analysis.max_rotation: found 15", "[rad]"});
+}
+
+TEST(InputErrors, SteelKeysTheCurveDoesNotUseOrThatDisagreeAreErrors) {
+  expect_input_error(
+      [] { generated(replaced(kGenerated, "fy = 355", "fy = 355\ncurve = \"elastic_plastic\"")); },
+      {"steel.fu: found", "no fu with curve = \"elastic_plastic\""});
+  expect_input_error([] {
+    generated(replaced(kGenerated, "fu = 490", "curve = \"table\"\ntable = [[300.0, 0.0], [400.0, 0.1]]"));
+  }, {"steel.table: found a first stress of 300 MPa", "fy = 355 MPa"});
+}
+
+TEST(InputErrors, AnUnquotedTextValueGetsAHintWithTheQuotes) {
+  expect_input_error([] { generated("[section]\ndesignation = IPE 300\n"); },
+                     {"beam.toml:2:", "a text value needs quotes: designation = \"IPE 300\""});
+}
+
 }  // namespace
 }  // namespace rotcap
