@@ -28,9 +28,12 @@
 //         curve               "elastic" | "elastic_plastic" | "bilinear" | "quadlinear" | "table"
 //                                                                 "quadlinear"
 //         fy                  number; required for generated models and every curve but elastic
-//                             and table (a table without fy: its first stress)
+//                             and table (a table without fy: its first stress; with fy, the
+//                             first stress must equal it within 0.5 %)
 //                                                                 -              fy > 0
-//         fu                  number; required for bilinear and quadlinear
+//                             generated models: 150000 <= E <= 250000, 100 <= fy <= 1500,
+//                             150 <= fu <= 2000 (MPa of a structural steel: a unit slip otherwise)
+//         fu                  number; bilinear and quadlinear only, required
 //                                                                 -              fu >= fy (bilinear: >)
 //         hardening_modulus   number; bilinear only, required     -              0 < E_h < E
 //         table               [[true stress, eq. plastic strain], ...]; table only, required;
@@ -39,7 +42,7 @@
 // [member] (generated)
 //         setup               "cantilever" | "three_point" | "four_point" | "uniform_moment"
 //                                                                 required
-//         length              number [mm]                         required       > 0
+//         length              number [mm]                         required       >= section depth
 //         load_spacing        number [mm]; four_point only, required          0 < a < length
 //         axial_load_ratio    number, N/N_pl, compression > 0     0              0 <= n < 1;
 //                                                                                0 for three_point
@@ -86,7 +89,7 @@
 //                             above twice it)                     6              1 <= t <= max_iterations
 //         arc_length_form     "cylindrical" | "normal_plane"      "cylindrical"
 //         max_rotation        number [rad] (generated only): stop at this hinge rotation
-//                                                                 0.15           > 0
+//                                                                 0.15           0 < x <= 1
 //         stop_below          number: stop on the falling branch when M (general: the load
 //                             factor) < stop_below * maximum      0.75           0 < s < 1
 //         max_steps           integer                             500            >= 1
