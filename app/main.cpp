@@ -3,6 +3,7 @@
 // 4. map failures to exit codes (2 bad input: InputError or OptionError; 3 stopped early;
 // 1 internal error: anything else, failed ROTCAP_CHECKs included).
 #include "app/commands.hpp"
+#include "app/interrupt.hpp"
 #include "app/logging.hpp"
 #include "core/option_error.hpp"
 #include "io/input_error.hpp"
@@ -77,8 +78,9 @@ int main(int argc, char** argv) {
     const int code = cli.exit(e);
     return code == 0 ? kExitOk : kExitBadInput;
   }
-  // 2. Logging.
+  // 2. Logging; SIGINT / SIGTERM stop a path run at its next converged step (app/interrupt.hpp).
   setup_console_logging(o.quiet);
+  install_interrupt_handlers();
   // 3. The command; 4. failures to exit codes.
   try {
     if (*run) return command_run(o);

@@ -1,6 +1,7 @@
 #include "app/path_run.hpp"
 
 #include "app/commands.hpp"
+#include "app/interrupt.hpp"
 #include "app/logging.hpp"
 #include "core/check.hpp"
 #include "solver/dof_map.hpp"
@@ -40,6 +41,7 @@ PathRunResult run_path(ShellProblem& problem, const ShellModel& model, RunRecord
     if (recorder.fields_due(step.step) && !recorder.has_fields(step.step))
       recorder.write_fields(step.step, step.load_factor, model, u, snapshot_results(problem));
     stop = std::move(record.stop_reason);
+    if (!stop && interrupt_requested()) stop = std::string(kInterrupted);
     return !stop.has_value();
   };
   log_info(setup.description + " (" + enum_name(setup.control) + "), " + std::to_string(problem.size()) +
@@ -84,7 +86,8 @@ int finish_path(const PathSummary& ps, const std::string& stop_reason, double wa
   log_info("stopped: " + stop_reason + " (" + ps.message + "); " + std::to_string(ps.steps) + " steps, " +
            std::to_string(ps.iterations) + " iterations, " + std::to_string(ps.cutbacks) + " cut-backs, " +
            std::to_string(wall) + " s");
-  const bool early = ps.status == PathStatus::StepTooSmall || ps.status == PathStatus::EvaluationFailed;
+  const bool early = ps.status == PathStatus::StepTooSmall || ps.status == PathStatus::EvaluationFailed ||
+                     stop_reason == kInterrupted;
   return early ? kExitStoppedEarly : kExitOk;
 }
 

@@ -36,6 +36,9 @@ struct StepRecord {
 };
 using StepHandler = std::function<StepRecord(const ConvergedStep&, const Eigen::VectorXd& u)>;
 
+/// The stop reason of a run stopped by SIGINT or SIGTERM (app/interrupt.hpp); its exit code is 3.
+inline constexpr const char* kInterrupted = "interrupted";
+
 struct PathRunResult {
   PathSummary path;
   std::string stop_reason;  ///< the caller's, the path status's, landed_reason or "completed"
@@ -51,7 +54,8 @@ ElementResults snapshot_results(const ShellProblem& problem);
 /// summary.json's "solver" object of a finished path.
 nlohmann::json solver_summary(const PathSummary& path, const ShellProblem& problem, const ShellModel& model,
                               double wall_seconds);
-/// Logs the closing line of a path and returns the exit code it calls for (3 when it stopped early).
+/// Logs the closing line of a path and returns the exit code it calls for (3 when it stopped early:
+/// no convergence, a failed evaluation, or interrupted).
 int finish_path(const PathSummary& path, const std::string& stop_reason, double wall_seconds);
 
 }  // namespace rotcap::app
