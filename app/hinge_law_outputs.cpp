@@ -104,6 +104,7 @@ LinePlot hinge_curve_plot(const std::string& title, const std::vector<MomentRota
   plot.options.x2 = SecondaryAxis{theta_p_mrad, "θ [mrad]"};
   plot.options.y2 = SecondaryAxis{mp_kNm, "M [kNm]"};
   plot.options.height = 500;
+  plot.options.target_ticks = 8;  // M/Mp ticks 0.1 apart over the zoomed range
   PlotSeries shell;
   shell.name = "shell model (rotcap)";
   shell.colour = "#1b4f9c";
@@ -167,14 +168,14 @@ LinePlot hinge_curve_plot(const std::string& title, const std::vector<MomentRota
   if (r.theta_u)
     plot.point_labels.push_back({*r.theta_u / theta_p, 1.0,
                                  r.rotation_capacity_is_lower_bound
-                                     ? format_text("end of run: R >= %.2f", *r.rotation_capacity)
+                                     ? format_text("end of run: R ≥ %.2f", *r.rotation_capacity)
                                      : "θu = " + mrad_text(1e3 * *r.theta_u) + format_text(", R = %.2f", *r.rotation_capacity),
                                  "#0050b0", MarkerShape::diamond});
   // The rotation demand: the theta at which theta_u would just meet it.
   if (const auto needed = json_number(summary, {"demand", "required_theta_u_mrad"})) {
     const std::string verdict = json_string(summary, {"demand", "verdict"});
     plot.reference_lines.push_back({LineOrientation::vertical, *needed / theta_p_mrad,
-                                    "demand: θu >= " + mrad_text(*needed) + (verdict.empty() ? "" : " (" + verdict + ")"),
+                                    "demand: θu ≥ " + mrad_text(*needed) + (verdict.empty() ? "" : " (" + verdict + ")"),
                                     "#a6611a", LineDash::dash_dot});
   }
   return plot;

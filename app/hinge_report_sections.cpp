@@ -50,7 +50,10 @@ ReportSection result_section(const ReportInputs& in) {
   t.row("M_max / Mp", ratio_text(r.m_max / mp), "m-max-over-mp");
   t.row("θp, elastic rotation at Mp (computed from the curve's initial slope)", mrad_text(1e3 * theta_p));
   t.row("θp, beam theory (bending only)", mrad_text(1e3 * in.hinge.theta_p_beam));
-  t.row("θu, rotation where M falls back to Mp", r.theta_u ? mrad_text(1e3 * *r.theta_u) : "not reached (M_max < Mp)");
+  t.row("θu, rotation where M falls back to Mp",
+        !r.theta_u ? "not reached (M_max < Mp)"
+        : r.rotation_capacity_is_lower_bound ? "≥ " + mrad_text(1e3 * *r.theta_u) + " (end of run; M was still above Mp)"
+                                             : mrad_text(1e3 * *r.theta_u));
   std::optional<double> available = json_number(s, {"available_plastic_rotation_mrad"});
   if (!available && r.theta_u) available = 1e3 * (*r.theta_u - theta_p);
   t.row("available plastic rotation θu − θp", available ? mrad_text(*available) : "none (M_max < Mp)");
@@ -84,8 +87,8 @@ ReportSection result_section(const ReportInputs& in) {
           (verdict.empty() ? std::string("not shown") : verdict) +
               (json_number(d, {"margin"}) ? " (margin " + value(json_number(d, {"margin"}), true) + ")" : ""),
           "demand-verdict");
-    if (const std::string basis = json_string(d, {"basis"}); !basis.empty()) sec.paragraphs.push_back("Demand basis: " + basis + ".");
-    if (const std::string note = json_string(d, {"note"}); !note.empty()) sec.paragraphs.push_back("Demand: " + note);
+    if (const std::string basis = json_string(d, {"basis"}); !basis.empty()) t.row("demand: basis", basis);
+    if (const std::string note = json_string(d, {"note"}); !note.empty()) t.row("demand: note", note);
   }
   sec.tables.push_back(t.table);
   if (!r.theta_u)
