@@ -69,6 +69,7 @@ void write_hinge_report(const CaseInput& input, const HingeCase& hinge, const st
   page.sections.push_back(imperfection_section(in));
   page.sections.push_back(residual_stress_section(in));
   page.sections.push_back(curve_section(in, render_svg(plot)));
+  page.sections.push_back(laws_section(in));
   page.sections.push_back(fitted_law_section(in));
   if (!mesh.quads.empty()) page.sections.push_back(deformed_section(in));
   page.sections.push_back(inputs_section(in));

@@ -34,6 +34,8 @@ ReportSection imperfection_section(const ReportInputs& in);
 ReportSection residual_stress_section(const ReportInputs& in);
 /// plot_svg: the curve as an <svg> element (the same as curve.svg).
 ReportSection curve_section(const ReportInputs& in, const std::string& plot_svg);
+/// The laws (a), (b), (c) against the shell curve at theta(M_max) and theta_u.
+ReportSection laws_section(const ReportInputs& in);
 ReportSection fitted_law_section(const ReportInputs& in);
 /// The deformed hinge zone at true scale, coloured by |uy|, supports and loads marked.
 ReportSection deformed_section(const ReportInputs& in);
