@@ -1,8 +1,10 @@
 #include "app/hinge_law_outputs.hpp"
 
+#include "app/report_words.hpp"
 #include "core/text_format.hpp"
 #include "io/input_error.hpp"
 
+#include <cmath>
 #include <fstream>
 
 namespace rotcap::app {
@@ -49,7 +51,7 @@ struct LawStyle {
 };
 
 LawStyle style_of(const std::string& key) {
-  if (key == "elastic_perfectly_plastic") return {"#555555", LineDash::dashed};
+  if (key == "elastic_perfectly_plastic") return {"#111111", LineDash::dashed};
   if (key == "linear_hardening") return {"#1a9850", LineDash::dash_dot};
   return {"#d95f02", LineDash::solid};
 }
@@ -92,12 +94,17 @@ json hinge_laws_json(const HingeLawSet& set, double mp) {
 }
 
 LinePlot hinge_curve_plot(const std::string& title, const std::vector<MomentRotationPoint>& pts,
-                          const HingeCurveResult& r, const HingeLawSet& set, double mp) {
+                          const HingeCurveResult& r, const HingeLawSet& set, double mp, const json& summary) {
   const double theta_p = set.theta_p;
+  const double theta_p_mrad = 1e3 * theta_p, mp_kNm = mp / 1e6;
   LinePlot plot;
   plot.options.title = title.empty() ? "Moment-rotation curve" : title;
-  plot.options.x_label = "theta / theta_p";
-  plot.options.y_label = "M / Mp";
+  plot.options.x_label = "θ / θp  (θp = " + mrad_text(theta_p_mrad) + ", computed)";
+  plot.options.y_label = "M / Mp  (Mp = " + kNm_text(mp_kNm) + ")";
+  plot.options.x2 = SecondaryAxis{theta_p_mrad, "θ [mrad]"};
+  plot.options.y2 = SecondaryAxis{mp_kNm, "M [kNm]"};
+  plot.options.height = 500;
+  plot.options.target_ticks = 8;  // M/Mp ticks 0.1 apart over the zoomed range
   PlotSeries shell;
   shell.name = "shell model (rotcap)";
   shell.colour = "#1b4f9c";
@@ -106,38 +113,80 @@ LinePlot hinge_curve_plot(const std::string& title, const std::vector<MomentRota
     shell.x.push_back(p.theta / theta_p);
     shell.y.push_back(p.moment / mp);
   }
-  plot.series.push_back(shell);
-  auto add = [&](const std::string& name, const std::string& colour, LineDash dash, MarkerShape marker,
-                 const std::vector<MomentRotationPoint>& c) {
+  auto law_series = [&](const std::string& name, const std::string& colour, LineDash dash, MarkerShape marker,
+                        double width, const std::vector<MomentRotationPoint>& c) {
     PlotSeries ps;
     ps.name = name;
     ps.colour = colour;
     ps.dash = dash;
     ps.marker = marker;
-    ps.line_width = 1.6;
+    ps.line_width = width;
     for (const auto& p : cut_at(c, 1.1 * pts.back().theta)) {
       ps.x.push_back(p.theta / theta_p);
       ps.y.push_back(p.moment / mp);
     }
-    plot.series.push_back(ps);
+    return ps;
   };
-  for (const HingeLawCurve& l : set.laws)
-    if (!l.curve.empty()) add(l.label, style_of(l.key).colour, style_of(l.key).dash, MarkerShape::none, l.curve);
-  add("fitted multilinear law", "#7b3294", LineDash::dotted, MarkerShape::square, fitted_law_curve(set.fitted, set.k_el));
-  plot.reference_lines.push_back({LineOrientation::horizontal, 1.0, "Mp", "#555555", LineDash::dashed});
-  plot.point_labels.push_back({r.theta_at_m_max / theta_p, r.m_max / mp, format_text("peak %.3f Mp", r.m_max / mp),
+  // Drawing order: the shell first, then the laws; law (a) last, so that its dashes stay visible
+  // where it runs along the (thin, light) Mp line and over the other curves.
+  plot.series.push_back(shell);
+  std::optional<PlotSeries> law_a;
+  for (const HingeLawCurve& l : set.laws) {
+    if (l.curve.empty()) continue;
+    const LawStyle st = style_of(l.key);
+    const bool a = l.key == "elastic_perfectly_plastic";
+    PlotSeries ps = law_series(l.label, st.colour, st.dash, MarkerShape::none, a ? 2.0 : 1.6, l.curve);
+    if (a) law_a = ps;
+    else plot.series.push_back(ps);
+  }
+  plot.series.push_back(law_series("fitted multilinear law", "#7b3294", LineDash::dotted, MarkerShape::square, 1.6,
+                                   fitted_law_curve(set.fitted, set.k_el)));
+  if (law_a) plot.series.push_back(*law_a);
+  ReferenceLine mp_line{LineOrientation::horizontal, 1.0, "Mp", "#b0b0b0", LineDash::solid};
+  mp_line.line_width = 1.0;
+  plot.reference_lines.push_back(mp_line);
+  // The y range: from the lower of 0.5 Mp and 0.05 Mp below the lowest shell moment after the peak
+  // (so the falling branch is always inside), to 0.05 Mp above the highest drawn moment (and at
+  // least 1.05 Mp, so the Mp line is never on the frame). Below 0.5 Mp the curve is the straight
+  // elastic line, whose slope the theta_p of the x label gives; the zoom spends the height on the
+  // peak, the plateau and the fall, where the answer is.
+  double low = 0.5, high = 1.0;
+  bool after_peak = false;
+  for (const auto& p : pts) {
+    after_peak |= p.theta >= r.theta_at_m_max;
+    if (after_peak) low = std::min(low, p.moment / mp - 0.05);
+  }
+  for (const PlotSeries& ps : plot.series)
+    for (double y : ps.y)
+      if (std::isfinite(y)) high = std::max(high, y);
+  plot.options.y_min = std::max(0.0, std::floor(10.0 * low + 1e-9) / 10.0);
+  plot.options.y_max = std::ceil(20.0 * (high + 0.05) - 1e-9) / 20.0;
+  plot.options.x_min = 0.0;
+  plot.point_labels.push_back({r.theta_at_m_max / theta_p, r.m_max / mp,
+                               "peak " + kNm_text(r.m_max / 1e6) + format_text(" = %.3f Mp", r.m_max / mp),
                                "#b00000", MarkerShape::circle});
   if (r.theta_u)
     plot.point_labels.push_back({*r.theta_u / theta_p, 1.0,
                                  r.rotation_capacity_is_lower_bound
-                                     ? format_text("end of run (R >= %.2f)", *r.rotation_capacity)
-                                     : format_text("theta_u, R = %.2f", *r.rotation_capacity),
+                                     ? format_text("end of run: R ≥ %.2f", *r.rotation_capacity)
+                                     : "θu = " + mrad_text(1e3 * *r.theta_u) + format_text(", R = %.2f", *r.rotation_capacity),
                                  "#0050b0", MarkerShape::diamond});
+  // The rotation demand: the theta at which theta_u would just meet it.
+  if (const auto needed = json_number(summary, {"demand", "required_theta_u_mrad"})) {
+    const std::string verdict = json_string(summary, {"demand", "verdict"});
+    plot.reference_lines.push_back({LineOrientation::vertical, *needed / theta_p_mrad,
+                                    "demand: θu ≥ " + mrad_text(*needed) + (verdict.empty() ? "" : " (" + verdict + ")"),
+                                    "#a6611a", LineDash::dash_dot});
+  }
   return plot;
 }
 
-StageReport write_hinge_law_outputs(const std::string& title, const std::vector<MomentRotationPoint>& shell,
-                                    const HingeCurveResult& r, const HingeLawSet& set, double mp, const fs::path& folder) {
+// title, shell and extraction are kept in the signature for the callers; curve.svg, which used them,
+// is now written with report.html (app/hinge_report_page.hpp).
+StageReport write_hinge_law_outputs([[maybe_unused]] const std::string& title,
+                                    [[maybe_unused]] const std::vector<MomentRotationPoint>& shell,
+                                    [[maybe_unused]] const HingeCurveResult& r, const HingeLawSet& set, double mp,
+                                    const fs::path& folder) {
   StageReport report;
   report.log.push_back(set.fitted.message);
   report.json = hinge_laws_json(set, mp);
@@ -155,7 +204,6 @@ StageReport write_hinge_law_outputs(const std::string& title, const std::vector<
         (c.theta_first_below_5pct ? format_text("%.2f mrad", *c.theta_first_below_5pct * 1e3) : "- (never)"));
   }
   write_fitted_law_csv(set.fitted, mp, set.theta_p, folder / "hinge_law.csv");
-  write_svg(hinge_curve_plot(title, shell, r, set, mp), folder / "curve.svg");
   return report;
 }
 

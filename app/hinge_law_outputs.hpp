@@ -10,9 +10,11 @@
 //    "peak", "corner" or "end", model/fitted_hinge_law.hpp), theta_plastic_mrad, moment_kNm,
 //    theta_plastic_over_theta_p, m_over_mp (elastic branch: slope k_el = Mp / theta_p before the
 //    first point);
-//  - curve.svg: the shell curve (M/Mp against theta/theta_p) with the laws (a), (b), (c) and the
-//    fitted law overlaid and labelled, drawn up to 1.1 x the shell's last rotation.
-// report.html is made from the same set by app/hinge_report_page.hpp.
+//  - curve.svg's plot (hinge_curve_plot; the file is written with report.html by
+//    app/hinge_report_page.hpp, once summary.json holds the demand): the shell curve (M/Mp against
+//    theta/theta_p, computed theta_p) with the laws (a), (b), (c) and the fitted law overlaid and
+//    labelled, drawn up to 1.1 x the shell's last rotation; top axis theta [mrad], right axis
+//    M [kNm]; y zoomed to where the answer is (see hinge_curve_plot); the demand as a vertical line.
 #include "app/hinge_case.hpp"
 #include "app/hinge_stages.hpp"
 #include "io/svg_plot.hpp"
@@ -29,10 +31,15 @@ namespace rotcap::app {
 nlohmann::json hinge_laws_json(const HingeLawSet& set, double mp);
 
 /// curve.svg's plot: the shell points with the laws, the Mp line, the peak and theta_u marked.
+/// summary: summary.json (optional keys read: demand.required_theta_u_mrad and demand.verdict,
+/// drawn as a vertical line at that theta when present; an empty object draws no demand).
+/// y range: from min(0.5, lowest shell M/Mp after the peak - 0.05) rounded down to 0.1, to the
+/// highest drawn M/Mp + 0.05 (at least 1.05) rounded up to 0.05; x from 0.
 LinePlot hinge_curve_plot(const std::string& title, const std::vector<MomentRotationPoint>& shell,
-                          const HingeCurveResult& extraction, const HingeLawSet& set, double mp);
+                          const HingeCurveResult& extraction, const HingeLawSet& set, double mp,
+                          const nlohmann::json& summary = nlohmann::json::object());
 
-/// Writes hinge_law.csv and curve.svg into folder; returns the log lines and hinge_laws_json.
+/// Writes hinge_law.csv into folder; returns the log lines and hinge_laws_json.
 StageReport write_hinge_law_outputs(const std::string& title, const std::vector<MomentRotationPoint>& shell,
                                     const HingeCurveResult& extraction, const HingeLawSet& set, double mp,
                                     const std::filesystem::path& folder);

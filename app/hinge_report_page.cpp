@@ -2,144 +2,82 @@
 
 #include "app/commands.hpp"
 #include "app/hinge_law_outputs.hpp"
+#include "app/hinge_report_sections.hpp"
+#include "app/logging.hpp"
+#include "app/report_pdf.hpp"
+#include "app/report_words.hpp"
 #include "core/text_format.hpp"
-#include "io/case_echo.hpp"
 #include "io/report_html.hpp"
 
 namespace rotcap::app {
 
 using nlohmann::json;
+namespace fs = std::filesystem;
 
 namespace {
 
-std::string num_text(const json& v, const char* f, double scale = 1.0) {
-  if (v.is_number()) return format_text(f, v.get<double>() * scale);
-  if (v.is_boolean()) return v.get<bool>() ? "true" : "false";
-  if (v.is_string()) return v.get<std::string>();
-  return "-";
-}
-
-void flatten(const json& j, const std::string& prefix, std::vector<std::pair<std::string, std::string>>& out) {
-  if (j.is_object()) {
-    for (auto it = j.begin(); it != j.end(); ++it) flatten(it.value(), prefix.empty() ? it.key() : prefix + "." + it.key(), out);
-  } else {
-    out.emplace_back(prefix, j.is_string() ? j.get<std::string>() : j.dump());
-  }
-}
-
-ReportTable key_value_table(const std::string& caption, const std::vector<std::pair<std::string, std::string>>& kv) {
+/// The files of a results folder the page may name, with what each holds; only those present.
+ReportSection files_section(const fs::path& folder, bool pdf_expected) {
+  static const std::pair<const char*, const char*> kFiles[] = {
+      {"summary.json", "every reported number and the full case input, defaults filled in"},
+      {"curve.csv", "the moment-rotation curve, one row per converged step"},
+      {"curve.svg", "the plot above"},
+      {"hinge_law.csv", "the fitted multilinear hinge law"},
+      {"final_state.json", "the deformed mesh at the end, with supports and loads (redraws the picture)"},
+      {"fields.pvd", "displacement, stress and plastic-strain fields for a VTK viewer"},
+      {"run.log", "the log of the run"}};
+  ReportSection sec;
+  sec.heading = "Files in this results folder";
   ReportTable t;
-  t.caption = caption;
-  t.header = {"key", "value"};
-  for (const auto& [k, v] : kv) t.rows.push_back({{k, ""}, {v, ""}});
-  return t;
+  t.header = {"file", "holds"};
+  for (const auto& [name, what] : kFiles)
+    if (fs::exists(folder / name) || std::string(name) == "curve.svg") t.rows.push_back({{name, ""}, {what, ""}});
+  if (pdf_expected) t.rows.push_back({{"report.pdf", ""}, {"this page, printed (A4)", ""}});
+  sec.tables.push_back(t);
+  return sec;
+}
+
+std::vector<std::pair<std::string, std::string>> header_facts(const CaseInput& input, const json& summary) {
+  std::vector<std::pair<std::string, std::string>> facts;
+  const std::string name = json_string(summary, {"program", "name"}), version = json_string(summary, {"program", "version"});
+  facts.emplace_back("program", (name.empty() ? std::string("rotcap") : name) + (version.empty() ? "" : " " + version));
+  if (const std::string date = json_string(summary, {"program", "run_date"}); !date.empty())
+    facts.emplace_back("run", date_words(date));
+  std::string file = json_string(summary, {"input", "file"});
+  if (file.empty()) file = input.file.string();
+  if (!file.empty()) facts.emplace_back("case file", file);
+  return facts;
 }
 
 }  // namespace
 
 void write_hinge_report(const CaseInput& input, const HingeCase& hinge, const std::vector<MomentRotationPoint>& pts,
                         const HingeCurveResult& r, const HingeLawSet& set, const DeformedMesh& mesh,
-                        const json& summary, const std::filesystem::path& folder) {
-  const double mp = hinge.zone.plastic_moment;
-  const double theta_p = set.theta_p;
-  const double k_el = set.k_el;
-  const FittedHingeLaw& fit = set.fitted;
-  const json jl = hinge_laws_json(set, mp).at("laws");
-  const LinePlot plot = hinge_curve_plot(input.title, pts, r, set, mp);
+                        const json& summary, const fs::path& folder) {
+  const ReportInputs in{input, hinge, pts, r, set, mesh, summary};
+  const LinePlot plot = hinge_curve_plot(input.title, pts, r, set, hinge.zone.plastic_moment, summary);
+  write_svg(plot, folder / "curve.svg");
+  const bool pdf_expected = find_on_path("chromium").has_value();
   ReportPage page;
-  page.title = input.title.empty() ? "rotcap hinge-zone report" : input.title;
-  page.subtitle = "Plastic-hinge moment-rotation analysis by nonlinear shell model (rotcap); units mm, N, MPa, kNm, mrad";
+  page.title = input.title.empty() ? "Plastic hinge: moment-rotation report" : input.title;
+  page.subtitle = "Moment-rotation capacity of a steel I-beam plastic hinge from a nonlinear shell model";
+  page.facts = header_facts(input, summary);
   page.caution = kCaution;
-  {
-    ReportSection sec{"Inputs", {}, {}, {}, {}};
-    std::vector<std::pair<std::string, std::string>> kv;
-    flatten(summary.contains("input") ? summary.at("input") : to_json(input), "", kv);
-    sec.tables.push_back(key_value_table("case file (defaults filled in)", kv));
-    page.sections.push_back(sec);
-  }
-  {
-    ReportSection sec{"Section and classification", {}, {}, {}, {}};
-    std::string text;
-    for (const std::string& l : hinge.description) text += l + "\n";
-    sec.preformatted.push_back(text);
-    page.sections.push_back(sec);
-  }
-  {
-    ReportSection sec{"Results", {}, {}, {}, {}};
-    ReportTable t;
-    t.caption = "reported numbers (interface.md definitions)";
-    t.header = {"quantity", "value"};
-    auto row = [&](const std::string& name, const std::string& value, const std::string& id = "") {
-      t.rows.push_back({{name, ""}, {value, id}});
-    };
-    row("Mp (plate model) [kNm]", format_text("%.2f", mp / 1e6), "mp");
-    row("Mel [kNm]", format_text("%.2f", hinge.mel / 1e6));
-    row("M_max [kNm]", format_text("%.2f", r.m_max / 1e6), "m-max");
-    row("M_max / Mp", format_text("%.4f", r.m_max / mp), "m-max-over-mp");
-    row("theta at M_max [mrad]", format_text("%.2f", 1e3 * r.theta_at_m_max));
-    row("theta_p (computed) [mrad]", format_text("%.3f", 1e3 * theta_p));
-    row("theta_p (beam theory) [mrad]", format_text("%.3f", 1e3 * hinge.theta_p_beam));
-    row("theta_u [mrad]", r.theta_u ? format_text("%.2f", 1e3 * *r.theta_u) : "-");
-    row("rotation capacity R", r.rotation_capacity ? format_text("%.2f", *r.rotation_capacity) : "none (M_max < Mp)", "rotation-capacity");
-    row("R is a lower bound", r.rotation_capacity_is_lower_bound ? "yes (the run stopped before M fell back to Mp)" : "no");
-    row("section class (EN 1993-1-1 Table 5.2)", std::to_string(hinge.classification.section_class));
-    row("failure mode", summary.value("failure_mode", std::string("-")));
-    row("stop reason", summary.value("stop_reason", std::string("-")));
-    sec.tables.push_back(t);
-    sec.paragraphs.push_back(r.message);
-    page.sections.push_back(sec);
-  }
-  {
-    ReportSection sec{"Moment-rotation curve and simple hinge laws", {}, {}, {render_svg(plot)}, {}};
-    ReportTable t;
-    t.caption = "laws against the shell curve (error = (M_shell - M_law) / M_law)";
-    t.header = {"law", "M at theta(M_max) [kNm]", "error there", "M at theta_u [kNm]", "error there",
-                "shell 5 % below from [mrad]", "note"};
-    for (const HingeLawCurve& l : set.laws) {
-      const json& c = jl.at(l.key);
-      t.rows.push_back({{l.label, ""},
-                        {num_text(c.value("m_at_theta_at_m_max_kNm", json()), "%.2f"), ""},
-                        {num_text(c.value("error_at_theta_at_m_max", json()), "%+.1f %%", 100.0), ""},
-                        {num_text(c.value("m_at_theta_u_kNm", json()), "%.2f"), ""},
-                        {num_text(c.value("error_at_theta_u", json()), "%+.1f %%", 100.0), ""},
-                        {l.curve.empty() ? "-" : c["theta_first_below_5pct_mrad"].is_null() ? "never" : num_text(c["theta_first_below_5pct_mrad"], "%.2f"),
-                         l.key == "moment_curvature" ? "separation" : ""},
-                        {l.note, ""}});
-    }
-    sec.tables.push_back(t);
-    page.sections.push_back(sec);
-  }
-  {
-    ReportSection sec{"Fitted multilinear hinge law (hinge_law.csv)", {fit.message,
-                      format_text("Elastic branch before the first point: k_el = %.4g kNm/mrad (theta_p = %.3f mrad).", k_el / 1e9, 1e3 * theta_p)},
-                      {}, {}, {}};
-    ReportTable t;
-    t.header = {"point", "kind", "theta_plastic [mrad]", "M [kNm]", "theta_plastic / theta_p", "M / Mp"};
-    for (std::size_t k = 0; k < fit.points.size(); ++k) {
-      const FittedLawPoint& q = fit.points[k];
-      t.rows.push_back({{std::to_string(k), ""}, {q.kind, ""}, {format_text("%.3f", 1e3 * q.theta_plastic), ""},
-                        {format_text("%.2f", q.moment / 1e6), ""}, {format_text("%.3f", q.theta_plastic / theta_p), ""},
-                        {format_text("%.4f", q.moment / mp), ""}});
-    }
-    sec.tables.push_back(t);
-    page.sections.push_back(sec);
-  }
-  if (!mesh.quads.empty()) {
-    MeshPicture pic;
-    pic.title = "deformed hinge zone at the end of the run (true scale)";
-    pic.field_name = "|uy| [mm]";
-    for (std::size_t i = 0; i < mesh.nodes.size(); ++i) {
-      pic.points.push_back({mesh.nodes[i][0] + mesh.displacement[i][0], mesh.nodes[i][1] + mesh.displacement[i][1],
-                            mesh.nodes[i][2] + mesh.displacement[i][2]});
-      pic.values.push_back(std::abs(mesh.displacement[i][1]));
-    }
-    pic.quads = mesh.quads;
-    ReportSection sec{"Deformed hinge zone", {"Shell mesh at the last converged step, displacements at true scale, "
-                                              "coloured by the lateral displacement |uy| (local buckles and lateral deflection)."},
-                      {}, {render_mesh_svg(pic)}, {}};
-    page.sections.push_back(sec);
-  }
+  page.sections.push_back(result_section(in));
+  page.sections.push_back(section_section(in));
+  page.sections.push_back(model_section(in));
+  page.sections.push_back(imperfection_section(in));
+  page.sections.push_back(residual_stress_section(in));
+  page.sections.push_back(curve_section(in, render_svg(plot)));
+  page.sections.push_back(laws_section(in));
+  page.sections.push_back(fitted_law_section(in));
+  if (!mesh.quads.empty()) page.sections.push_back(deformed_section(in));
+  page.sections.push_back(inputs_section(in));
+  page.sections.push_back(files_section(folder, pdf_expected));
   write_report_html(page, folder / "report.html");
+  const PdfResult pdf = print_report_pdf(folder / "report.html", folder / "report.pdf");
+  if (pdf.status == PdfResult::Status::failed) log_warn(pdf.message);
+  else log_info(pdf.message);
 }
 
 }  // namespace rotcap::app

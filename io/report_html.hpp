@@ -10,21 +10,18 @@
 //  - Deterministic: the same page gives the same bytes.
 //  - Elements carry ids the tests and readers can rely on: each section gets id="section-<k>"
 //    (k from 1 in order), and a table cell can be given an id (ReportCell::id).
-// MeshPicture: a deformed shell mesh drawn as SVG polygons, coloured by one nodal field:
-//  - points: 3-D coordinates [mm] (already deformed, scaled as the caller wants); quads: node
-//    indices; values: one per point (the colour of a quad is the mean of its four values).
-//  - projection: rotation about the global z axis by azimuth, then about the screen's horizontal
-//    axis by elevation (an orthographic axonometric view, z up), fitted into width x height with
-//    equal scales; quads painted far to near by their mean depth (painter's algorithm).
-//  - colour map: five-stop blue - cyan - green - yellow - red, linear in the value between the
-//    field's min and max; a colour bar with both numbers and the field name is drawn.
-//  - Errors: std::invalid_argument for a quad index out of range, values.size() != points.size(),
-//    no quads, or non-finite coordinates (message names the item).
+//  - Layout: title, subtitle, the header facts on one line ("label: value" joined by " | "), the
+//    caution box, the sections in order (a section marked `boxed` is framed as the page's result
+//    box), the caution box again. Figures are <figure> elements with an optional <figcaption>.
+//  - Print (@media print): A4 portrait, 14 mm margins, white backgrounds, no table, figure or box
+//    split across pages, a page break before each section marked page_break_before.
 // write_report_html: OutputError (io/input_error.hpp) when the file cannot be written.
 
-#include <array>
+#include "io/mesh_picture.hpp"  // the deformed-mesh figure the hinge report inlines
+
 #include <filesystem>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace rotcap {
@@ -46,30 +43,20 @@ struct ReportSection {
   std::vector<ReportTable> tables;
   std::vector<std::string> figures;     ///< <svg> elements, drawn after the tables
   std::vector<std::string> preformatted;  ///< monospace blocks (<pre>)
+  std::vector<std::string> figure_captions;  ///< caption k belongs to figures[k]; missing or empty: none
+  bool boxed = false;                   ///< framed as the result box
+  bool page_break_before = false;       ///< printed from a new page
 };
 
 struct ReportPage {
   std::string title;
   std::string subtitle;
+  std::vector<std::pair<std::string, std::string>> facts;  ///< header line: (label, value)
   std::vector<ReportSection> sections;
   std::string caution;  ///< shown in a box at the top and at the end
 };
 
 std::string render_report_html(const ReportPage& page);
 void write_report_html(const ReportPage& page, const std::filesystem::path& file);
-
-struct MeshPicture {
-  std::vector<std::array<double, 3>> points;
-  std::vector<std::array<int, 4>> quads;
-  std::vector<double> values;
-  std::string field_name;
-  double azimuth_deg = -35.0;
-  double elevation_deg = 25.0;
-  int width = 760;
-  int height = 420;
-  std::string title;
-};
-
-std::string render_mesh_svg(const MeshPicture& picture);
 
 }  // namespace rotcap

@@ -41,16 +41,6 @@ std::string fixed(double v, int decimals) {
 
 std::string px(double v) { return fixed(v, 2); }
 
-std::string tick_text(double v, const AxisTicks& t) {
-  const double big = std::max(std::abs(t.lo), std::abs(t.hi));
-  if (big >= 1e6 || t.step < 1e-4) {
-    if (std::abs(v) < 1e-9 * t.step) return "0";
-    char buf[64];
-    auto res = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::general, 6);
-    return std::string(buf, res.ptr);
-  }
-  return fixed(v, t.decimals);
-}
 
 /// Estimated width [px] of UTF-8 text: its code points (continuation bytes not counted) times a
 /// mean glyph advance.
@@ -75,30 +65,8 @@ std::string dash_attribute(LineDash d) {
   return a.empty() ? std::string() : " stroke-dasharray=\"" + a + "\"";
 }
 
-/// Heckbert (1990) nicenum: a 1, 2, 5 or 10 times 10^k close to x > 0, rounded or ceiled.
-double nice_number(double x, bool round) {
-  const double e = std::floor(std::log10(x));
-  const double p = std::pow(10.0, e), f = x / p;
-  double nf;
-  if (round) nf = f < 1.5 ? 1.0 : f < 3.0 ? 2.0 : f < 7.0 ? 5.0 : 10.0;
-  else nf = f <= 1.0 ? 1.0 : f <= 2.0 ? 2.0 : f <= 5.0 ? 5.0 : 10.0;
-  return nf * p;
-}
 
-void fill_values(AxisTicks& t) {
-  t.values.clear();
-  const double slack = 1e-9;  // ticks on the ends despite round-off in lo / step
-  const double k0 = std::ceil(t.lo / t.step - slack), k1 = std::floor(t.hi / t.step + slack);
-  for (double k = k0; k <= k1; k += 1.0) t.values.push_back(k * t.step);
-}
 
-/// A zero-width range widened by 10 % of its value, or by 1 about 0.
-void widen_if_degenerate(double& lo, double& hi) {
-  if (hi > lo) return;
-  const double pad = lo != 0.0 ? 0.1 * std::abs(lo) : 1.0;
-  lo -= pad;
-  hi += pad;
-}
 
 struct Range {
   double lo = 0.0, hi = 0.0;
@@ -123,7 +91,7 @@ AxisTicks axis_ticks(const Range& data, std::optional<double> min, std::optional
   AxisTicks t = nice_ticks(lo, hi, target, true);
   if (min) t.lo = *min;
   if (max) t.hi = *max;
-  fill_values(t);
+  fill_tick_values(t);
   return t;
 }
 
@@ -220,6 +188,12 @@ void validate(const LinePlot& plot) {
     if (v && !std::isfinite(*v)) fail(std::string("options.") + name + " is not finite");
   if (o.x_min && o.x_max && !(*o.x_min < *o.x_max)) fail("options.x_min >= options.x_max");
   if (o.y_min && o.y_max && !(*o.y_min < *o.y_max)) fail("options.y_min >= options.y_max");
+  for (const auto& [name, axis] : {std::pair{"x2", o.x2}, std::pair{"y2", o.y2}})
+    if (axis && !(std::isfinite(axis->scale) && axis->scale > 0.0))
+      fail(std::string("options.") + name + ".scale = " + std::to_string(axis->scale) + ": expected finite > 0");
+  for (std::size_t k = 0; k < plot.reference_lines.size(); ++k)
+    if (!(plot.reference_lines[k].line_width > 0.0) || !std::isfinite(plot.reference_lines[k].line_width))
+      fail("reference_lines[" + std::to_string(k) + "]: line_width: expected > 0");
   for (std::size_t k = 0; k < plot.series.size(); ++k) {
     const PlotSeries& s = plot.series[k];
     const std::string where = "series[" + std::to_string(k) + "] '" + s.name + "'";
@@ -364,25 +338,6 @@ void draw_legend(std::string& out, const Frame& f, const LinePlot& plot,
 
 }  // namespace
 
-AxisTicks nice_ticks(double lo, double hi, int target, bool expand) {
-  if (!drawable(lo) || !drawable(hi) || lo > hi)
-    throw std::invalid_argument("nice_ticks: range [" + std::to_string(lo) + ", " + std::to_string(hi) +
-                                "]: expected lo <= hi, |lo|, |hi| <= 1e300");
-  if (target < 2)
-    throw std::invalid_argument("nice_ticks: target = " + std::to_string(target) + ": expected >= 2");
-  widen_if_degenerate(lo, hi);
-  // Heckbert (1990), loose labelling: range = nicenum(hi - lo, ceil), step = nicenum(range /
-  // (target - 1), round), axis widened to floor(lo / step) step .. ceil(hi / step) step.
-  const double range = nice_number(hi - lo, false);
-  AxisTicks t;
-  t.step = nice_number(range / (target - 1), true);
-  t.lo = expand ? std::floor(lo / t.step) * t.step : lo;
-  t.hi = expand ? std::ceil(hi / t.step) * t.step : hi;
-  // Digits after the point for every multiple of step; 1e-9 keeps step = 10^k from rounding down.
-  t.decimals = std::max(0, static_cast<int>(-std::floor(std::log10(t.step) + 1e-9)));
-  fill_values(t);
-  return t;
-}
 
 
 std::string render_svg(const LinePlot& plot) {
@@ -403,12 +358,21 @@ std::string render_svg(const LinePlot& plot) {
   f.xt = axis_ticks(xr, o.x_min, o.x_max, o.target_ticks);
   f.yt = axis_ticks(yr, o.y_min, o.y_max, o.target_ticks);
 
-  // 2. Layout: margins from the tick labels, axis labels and title.
-  double y_tick_w = 0.0;
+  // Secondary scales: their own nice ticks over the primary range times the scale.
+  const std::optional<AxisTicks> x2t =
+      o.x2 ? std::optional(nice_ticks(o.x2->scale * f.xt.lo, o.x2->scale * f.xt.hi, o.target_ticks, false)) : std::nullopt;
+  const std::optional<AxisTicks> y2t =
+      o.y2 ? std::optional(nice_ticks(o.y2->scale * f.yt.lo, o.y2->scale * f.yt.hi, o.target_ticks, false)) : std::nullopt;
+
+  // 2. Layout: margins from the tick labels, axis labels and title (and the secondary scales).
+  double y_tick_w = 0.0, y2_tick_w = 0.0;
   for (double v : f.yt.values) y_tick_w = std::max(y_tick_w, text_width(tick_text(v, f.yt), fs));
+  if (y2t)
+    for (double v : y2t->values) y2_tick_w = std::max(y2_tick_w, text_width(tick_text(v, *y2t), fs));
   f.x0 = std::min(W / 2, 10.0 + (o.y_label.empty() ? 0.0 : 1.6 * fs) + y_tick_w + 8.0);
-  f.x1 = W - 20.0;
-  f.y0 = o.title.empty() ? 16.0 : 2.6 * fs;
+  f.x1 = W - (y2t ? 10.0 + (o.y2->label.empty() ? 0.0 : 1.6 * fs) + y2_tick_w + 8.0 : 20.0);
+  f.x1 = std::max(f.x1, f.x0 + W / 4);
+  f.y0 = (o.title.empty() ? 16.0 : 2.6 * fs) + (x2t ? 1.4 * fs + (o.x2->label.empty() ? 0.0 : 1.4 * fs) : 0.0);
   f.y1 = H - (10.0 + 1.4 * fs + (o.x_label.empty() ? 0.0 : 1.6 * fs));
 
   std::vector<std::string> colours;
@@ -450,6 +414,28 @@ std::string render_svg(const LinePlot& plot) {
                 " transform=\"rotate(-90 " + px(x) + " " + px(y) + ")\"");
   }
   out += "</g>\n";
+  if (x2t || y2t) {
+    // Secondary scales: value v sits at the primary coordinate v / scale.
+    out += "<g class=\"secondary-axes\">\n";
+    if (x2t) {
+      for (double v : x2t->values) {
+        const double x = f.X(v / o.x2->scale);
+        out += line(x, f.y0 - 5, x, f.y0, "#333333") + text(x, f.y0 - 8, "middle", tick_text(v, *x2t));
+      }
+      if (!o.x2->label.empty()) out += text((f.x0 + f.x1) / 2, f.y0 - 8 - 1.4 * fs, "middle", o.x2->label);
+    }
+    if (y2t) {
+      for (double v : y2t->values) {
+        const double y = f.Y(v / o.y2->scale);
+        out += line(f.x1, y, f.x1 + 5, y, "#333333") + text(f.x1 + 8, y + 0.35 * fs, "start", tick_text(v, *y2t));
+      }
+      if (!o.y2->label.empty()) {
+        const double x = W - 10.0, y = (f.y0 + f.y1) / 2;
+        out += text(x, y, "middle", o.y2->label, " transform=\"rotate(-90 " + px(x) + " " + px(y) + ")\"");
+      }
+    }
+    out += "</g>\n";
+  }
 
   // 5. Reference lines (under the data), series, legend, point labels (on top).
   for (const ReferenceLine& l : plot.reference_lines) {
@@ -460,7 +446,7 @@ std::string render_svg(const LinePlot& plot) {
     const double a = horizontal ? f.Y(l.value) : f.X(l.value);
     out += "<g class=\"reference\">\n<line x1=\"" + px(horizontal ? f.x0 : a) + "\" y1=\"" +
            px(horizontal ? a : f.y0) + "\" x2=\"" + px(horizontal ? f.x1 : a) + "\" y2=\"" +
-           px(horizontal ? a : f.y1) + "\" stroke=\"" + colour + "\" stroke-width=\"1.20\"" +
+           px(horizontal ? a : f.y1) + "\" stroke=\"" + colour + "\" stroke-width=\"" + px(l.line_width) + "\"" +
            dash_attribute(l.dash) + "/>\n";
     if (!l.label.empty()) {
       const std::string fill = " fill=\"" + colour + "\"" + kHalo;

@@ -28,8 +28,10 @@
 // Errors: std::invalid_argument for a plot that cannot be drawn (the message names the field):
 // x and y of a series of different lengths, width or height outside [200, 4000], line width not
 // positive, font size outside (0, 1000], non-finite or empty explicit axis limits, target_ticks
-// outside [2, 20].
+// outside [2, 20], a secondary-axis scale not finite and > 0, a reference line width not > 0.
 // write_svg: OutputError (io/input_error.hpp) when the file cannot be written.
+
+#include "io/axis_ticks.hpp"
 
 #include <filesystem>
 #include <optional>
@@ -59,6 +61,7 @@ struct ReferenceLine {
   std::string label;           ///< drawn at the line's left end (horizontal) or top (vertical)
   std::string colour = "#555555";
   LineDash dash = LineDash::dashed;
+  double line_width = 1.2;     ///< px, > 0
 };
 
 struct PointLabel {
@@ -73,12 +76,21 @@ struct PointLabel {
 /// top_left, bottom_right, bottom_left).
 enum class LegendPlacement { automatic, top_right, top_left, bottom_right, bottom_left, none };
 
+/// A second scale of an axis in other units, drawn on the opposite side of the box (top for x,
+/// right for y) with its own nice ticks: secondary value = scale * primary value (scale finite,
+/// > 0), e.g. theta [mrad] = theta_p [mrad] * (theta / theta_p).
+struct SecondaryAxis {
+  double scale = 1.0;
+  std::string label;
+};
+
 struct PlotOptions {
   int width = 720;             ///< px, 200 .. 4000
   int height = 480;            ///< px, 200 .. 4000
   std::string title;           ///< empty: no title line
   std::string x_label, y_label;
   std::optional<double> x_min, x_max, y_min, y_max;  ///< explicit axis limits (min < max)
+  std::optional<SecondaryAxis> x2, y2;  ///< top and right scales; none: a plain frame edge
   int target_ticks = 6;        ///< about this many ticks per axis, 2 .. 20
   LegendPlacement legend = LegendPlacement::automatic;
   double font_size = 13.0;     ///< px, > 0 (tick labels; the title is 1.2 times larger)
@@ -92,17 +104,6 @@ struct LinePlot {
   std::vector<PointLabel> point_labels;      ///< drawn last, above the series
 };
 
-/// The ticks of one axis: values lo <= values[k] <= hi, all multiples of step.
-struct AxisTicks {
-  double lo = 0.0, hi = 1.0;   ///< axis range
-  double step = 0.2;           ///< tick spacing, > 0
-  std::vector<double> values;  ///< tick positions, ascending
-  int decimals = 1;            ///< digits after the point that show every tick exactly
-};
-
-/// Heckbert's nice ticks for the data range [lo, hi] (lo <= hi, finite), about target ticks.
-/// expand: widen [lo, hi] to whole steps (auto range); else keep lo, hi (explicit limits).
-AxisTicks nice_ticks(double lo, double hi, int target, bool expand);
 
 /// The plot as one <svg> element (see the header comment).
 std::string render_svg(const LinePlot& plot);

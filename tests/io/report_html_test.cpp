@@ -46,20 +46,35 @@ TEST(ReportHtml, EscapesText) {
   EXPECT_NE(h.find("R = 3.2 &lt; 4"), std::string::npos);
 }
 
-TEST(MeshPicture, DrawsOnePolygonPerQuadAndAColourBar) {
-  MeshPicture m;
-  m.points = {{0, 0, 0}, {1, 0, 0}, {1, 1, 0}, {0, 1, 0}, {2, 0, 0}, {2, 1, 0}};
-  m.quads = {{0, 1, 2, 3}, {1, 4, 5, 2}};
-  m.values = {0, 1, 2, 3, 4, 5};
-  m.field_name = "|uy| [mm]";
-  const std::string s = render_mesh_svg(m);
-  std::size_t polygons = 0;
-  for (std::size_t at = 0; (at = s.find("<polygon", at)) != std::string::npos; ++at) ++polygons;
-  EXPECT_EQ(polygons, 2u);
-  EXPECT_NE(s.find("|uy| [mm]"), std::string::npos);
-  EXPECT_NE(s.find(">5<"), std::string::npos);  // the field's maximum on the colour bar
-  m.quads.push_back({0, 1, 2, 9});
-  EXPECT_THROW(render_mesh_svg(m), std::invalid_argument);
+TEST(ReportHtml, ShowsHeaderFactsResultBoxAndFigureCaptions) {
+  ReportPage p = sample_page();
+  p.facts = {{"program", "rotcap 0.1.0"}, {"run", "2026-12-03 08:00 UTC"}};
+  p.sections[0].boxed = true;
+  p.sections[0].figure_captions = {"M against θ [kNm, mrad]"};
+  ReportSection later;
+  later.heading = "Deformed hinge zone";
+  later.page_break_before = true;
+  p.sections.push_back(later);
+  const std::string h = render_report_html(p);
+  EXPECT_NE(h.find("<p class=\"facts\">program: rotcap 0.1.0 | run: 2026-12-03 08:00 UTC</p>"), std::string::npos);
+  EXPECT_NE(h.find("<section id=\"section-1\" class=\"boxed\">"), std::string::npos);
+  EXPECT_NE(h.find("<section id=\"section-2\" class=\"page-break\">"), std::string::npos);
+  EXPECT_NE(h.find("</svg>\n<figcaption>M against θ [kNm, mrad]</figcaption>\n</figure>"), std::string::npos);
+  // The caution comes before the first section and again at the end.
+  EXPECT_LT(h.find("id=\"caution-top\""), h.find("id=\"section-1\""));
+  EXPECT_GT(h.find("id=\"caution-end\""), h.find("id=\"section-2\""));
+}
+
+TEST(ReportHtml, PrintStylesheetIsA4WithoutBackgroundsOrSplitFigures) {
+  const std::string h = render_report_html(sample_page());
+  EXPECT_NE(h.find("@page{size:A4 portrait;margin:14mm}"), std::string::npos);
+  const std::size_t print = h.find("@media print{");
+  ASSERT_NE(print, std::string::npos);
+  const std::string rules = h.substr(print, h.find("</style>") - print);
+  EXPECT_NE(rules.find(".caution,.boxed,th,pre{background:none}"), std::string::npos);
+  EXPECT_NE(rules.find("figure"), std::string::npos);
+  EXPECT_NE(rules.find("break-inside:avoid"), std::string::npos);
+  EXPECT_NE(rules.find(".page-break{break-before:page}"), std::string::npos);
 }
 
 }  // namespace

@@ -139,6 +139,54 @@ TEST(SvgPlot, IsWellFormedXmlHoldingTheSeriesAndLabels) {
   expect_only_finite_numbers(root.get(), svg);
 }
 
+/// The x attribute of the first <text> in root whose content is s; NaN when there is none.
+double text_x(vtkXMLDataElement* root, const std::string& s) {
+  for (vtkXMLDataElement* e : elements(root, "text"))
+    if (e->GetCharacterData() != nullptr && s == e->GetCharacterData()) return std::stod(e->GetAttribute("x"));
+  return std::numeric_limits<double>::quiet_NaN();
+}
+
+TEST(SvgPlot, DrawsSecondaryAxesWithTheirOwnTicksAtScaledPositions) {
+  LinePlot plot = hinge_like_plot();
+  plot.options.x2 = SecondaryAxis{14.81, "θ [mrad]"};   // theta_p = 14.81 mrad
+  plot.options.y2 = SecondaryAxis{309.3, "M [kNm]"};    // Mp = 309.3 kNm
+  const std::string svg = render_svg(plot);
+  const Element root = parse(svg);
+  ASSERT_NE(root, nullptr);
+  const auto groups = elements(root.get(), "g", "secondary-axes");
+  ASSERT_EQ(groups.size(), 1u);
+  const std::vector<std::string> t = texts(groups[0]);
+  EXPECT_TRUE(contains(t, "θ [mrad]"));
+  EXPECT_TRUE(contains(t, "M [kNm]"));
+  // Top scale over [0, 10 x 14.81 = 148.1]: range nicenum(148.1) = 200, step nicenum(200 / 5 = 40,
+  // round) = 50: ticks 0, 50, 100. Right scale over [0, 1.5 x 309.3 = 463.95]: range 500, step
+  // nicenum(100) = 100: ticks 0 .. 400.
+  for (const char* s : {"0", "50", "100", "200", "300", "400"}) EXPECT_TRUE(contains(t, s)) << s;
+  EXPECT_FALSE(contains(t, "150"));  // beyond 148.1, off the axis
+  // The tick "100" [mrad] sits at theta / theta_p = 100 / 14.81 of the primary axis, whose labels
+  // "0" and "10" give the px map (positions printed to 0.01 px).
+  const auto axes = elements(root.get(), "g", "axes");
+  ASSERT_EQ(axes.size(), 1u);
+  const double x0 = text_x(axes[0], "0"), x10 = text_x(axes[0], "10");
+  EXPECT_NEAR(text_x(groups[0], "100"), x0 + (100.0 / 14.81) / 10.0 * (x10 - x0), 0.011);
+  expect_only_finite_numbers(root.get(), svg);
+  plot.options.x2->scale = 0.0;
+  EXPECT_THROW(render_svg(plot), std::invalid_argument);
+}
+
+TEST(SvgPlot, DrawsReferenceLinesWithTheirOwnWidth) {
+  LinePlot plot = hinge_like_plot();
+  plot.reference_lines[0].line_width = 0.8;
+  const Element root = parse(render_svg(plot));
+  ASSERT_NE(root, nullptr);
+  const auto refs = elements(root.get(), "g", "reference");
+  ASSERT_EQ(refs.size(), 2u);
+  EXPECT_STREQ(elements(refs[0], "line")[0]->GetAttribute("stroke-width"), "0.80");
+  EXPECT_STREQ(elements(refs[1], "line")[0]->GetAttribute("stroke-width"), "1.20");  // the default
+  plot.reference_lines[0].line_width = 0.0;
+  EXPECT_THROW(render_svg(plot), std::invalid_argument);
+}
+
 TEST(SvgPlot, PlacesTheLegendInTheEmptiestCorner) {
   // The hinge-like plot: the "peak" label is near the top right, the theta_p line crosses the
   // top left, the falling curve stays above M/Mp = 1 on the right: the bottom right is free.

@@ -6,7 +6,11 @@
 //    shell falls more than 5 % below the integration and the report names the rotation;
 //  - the fitted law of both runs re-checked here from curve.csv and hinge_law.csv (3 % bound);
 //  - report.html opened in headless Chromium: no console errors, shows the computed R and M_max;
-//  - `rotcap report DIR` re-makes curve.svg, hinge_law.csv and report.html.
+//  - report.pdf printed by headless Chromium: pdfinfo counts its pages, pdftoppm renders a first
+//    page that is not blank;
+//  - curve.svg zoomed on the answer, with its kNm and mrad axes;
+//  - `rotcap report DIR` re-makes curve.svg, hinge_law.csv and report.html, and shows a rotation
+//    demand written into summary.json (the verdict in the result box, the line on the plot).
 // Measured (Release, 2 shared cores): each run about 11-13 s, the whole test about 30 s.
 #include "tests/test_support.hpp"
 
@@ -14,6 +18,7 @@
 
 #include <sys/wait.h>
 
+#include <algorithm>
 #include <cstdio>
 #include <cstdlib>
 #include <filesystem>
@@ -193,11 +198,87 @@ TEST(ReportPage, OpensInHeadlessChromiumWithoutConsoleErrors) {
   EXPECT_EQ(l.find("Uncaught"), std::string::npos) << l;
   char r_text[64], m_text[64];
   std::snprintf(r_text, sizeof r_text, "<td id=\"rotation-capacity\">%.2f</td>", s["rotation_capacity"].get<double>());
-  std::snprintf(m_text, sizeof m_text, "<td id=\"m-max\">%.2f</td>", s["m_max_kNm"].get<double>());
+  std::snprintf(m_text, sizeof m_text, "<td id=\"m-max\">%.1f kNm at", s["m_max_kNm"].get<double>());
   EXPECT_NE(d.find(r_text), std::string::npos) << r_text;
   EXPECT_NE(d.find(m_text), std::string::npos) << m_text;
   EXPECT_NE(d.find("<svg"), std::string::npos);
   EXPECT_NE(d.find("<polygon"), std::string::npos);  // the deformed hinge zone
+}
+
+/// stdout of a command (empty when it fails to start).
+std::string output_of(const std::string& command) {
+  std::string out;
+  if (FILE* p = popen(command.c_str(), "r")) {
+    char buf[4096];
+    for (std::size_t n; (n = std::fread(buf, 1, sizeof buf, p)) > 0;) out.append(buf, n);
+    pclose(p);
+  }
+  return out;
+}
+
+TEST(ReportPdf, IsPrintedWithPagesAndANonBlankFirstPage) {
+  if (run("command -v chromium > /dev/null 2>&1") != 0) GTEST_SKIP() << "chromium is not installed (scripts/install-deps.sh installs it)";
+  const fs::path out = results_of("slender_flange_cantilever");
+  const fs::path pdf = out / "report.pdf";
+  ASSERT_TRUE(fs::exists(pdf)) << read_text(out / "run.log");
+  ASSERT_EQ(run("command -v pdfinfo > /dev/null 2>&1 && command -v pdftoppm > /dev/null 2>&1"), 0)
+      << "pdfinfo and pdftoppm are needed (poppler-utils, scripts/install-deps.sh)";
+  const std::string info = output_of("pdfinfo \"" + pdf.string() + "\"");
+  const std::size_t at = info.find("Pages:");
+  ASSERT_NE(at, std::string::npos) << info;
+  EXPECT_GE(std::stoi(info.substr(at + 6)), 1) << info;
+  // The first page at 50 dpi as a binary grey map (PGM, "P5 w h 255" then one byte per pixel),
+  // which needs no image library to read; a blank page is all white (255).
+  const fs::path prefix = fs::path(ROTCAP_LAWS_SCRATCH) / "report_page1";
+  fs::remove(prefix.string() + ".pgm");
+  ASSERT_EQ(run("pdftoppm -r 50 -f 1 -l 1 -gray -singlefile \"" + pdf.string() + "\" \"" + prefix.string() + "\""), 0);
+  std::ifstream pgm(prefix.string() + ".pgm", std::ios::binary);
+  std::string magic;
+  int w = 0, h = 0, max = 0;
+  pgm >> magic >> w >> h >> max;
+  pgm.get();  // the one whitespace byte before the pixels
+  ASSERT_EQ(magic, "P5");
+  // A4 at 50 dpi: 8.27 in x 11.69 in = 413 x 584 pixels.
+  EXPECT_NEAR(w, 413, 2);
+  EXPECT_NEAR(h, 584, 2);
+  std::vector<char> pixels(static_cast<std::size_t>(w) * h);
+  pgm.read(pixels.data(), static_cast<std::streamsize>(pixels.size()));
+  ASSERT_EQ(pgm.gcount(), static_cast<std::streamsize>(pixels.size()));
+  std::size_t dark = 0;
+  for (char c : pixels) dark += static_cast<unsigned char>(c) < 200;
+  // Text, tables and the result box cover well over 1 % of the first page (measured 6 %).
+  EXPECT_GT(dark, pixels.size() / 100) << dark << " of " << pixels.size() << " pixels darker than 200";
+}
+
+TEST(CurvePlot, ZoomsOnTheAnswerAndGivesKnmAndMradAxes) {
+  const fs::path out = results_of("slender_flange_cantilever");
+  const json s = summary_of(out);
+  const std::string svg = read_text(out / "curve.svg");
+  for (const char* label : {"θ [mrad]", "M [kNm]", "θ / θp  (θp = ", "M / Mp  (Mp = "})
+    EXPECT_NE(svg.find(label), std::string::npos) << label;
+  // The left axis's tick labels (right-aligned, inside <g class="axes">). The axis starts at a
+  // multiple of 0.1 Mp and its ticks are 0.1 apart here (range below 1 Mp, 8 ticks asked), so the
+  // lowest label is the axis start: at most 0.5 Mp and at most the lowest M/Mp after the peak, but
+  // above 0 (the axis is zoomed); the highest label reaches above the peak.
+  const std::size_t a = svg.find("<g class=\"axes\">"), b = svg.find("</g>", a);
+  const std::string axes = svg.substr(a, b - a);
+  std::vector<double> ticks;
+  const std::string key = "text-anchor=\"end\">";
+  for (std::size_t at = axes.find(key); at != std::string::npos; at = axes.find(key, at + 1))
+    ticks.push_back(std::stod(axes.substr(at + key.size())));
+  ASSERT_GE(ticks.size(), 3u) << axes;
+  const double lowest = *std::min_element(ticks.begin(), ticks.end());
+  const double highest = *std::max_element(ticks.begin(), ticks.end());
+  double low_after_peak = 1e300;
+  bool after = false;
+  for (const Row& r : read_csv(out / "curve.csv")) {
+    after |= r.num("rotation_mrad") >= s["theta_at_m_max_mrad"].get<double>();
+    if (after) low_after_peak = std::min(low_after_peak, r.num("m_over_mp"));
+  }
+  EXPECT_GT(lowest, 0.0);
+  EXPECT_LE(lowest, 0.5);
+  EXPECT_LE(lowest, low_after_peak);
+  EXPECT_GE(highest, s["m_max_over_mp"].get<double>());
 }
 
 TEST(ReportCommand, RemakesTheFilesFromAResultsFolder) {
@@ -209,6 +290,11 @@ TEST(ReportCommand, RemakesTheFilesFromAResultsFolder) {
   json s = summary_of(copy);
   s.erase("laws");
   s.erase("fitted_law");
+  // A rotation demand 5 mrad below the available plastic rotation: met, margin +5.00 mrad.
+  const double theta_p = s["theta_p_mrad"].get<double>(), available = s["theta_u_mrad"].get<double>() - theta_p;
+  s["demand"] = {{"kind", "plastic_rotation"}, {"required", available - 5.0}, {"unit", "mrad"}, {"available", available},
+                 {"margin", 5.0}, {"verdict", "met"}, {"basis", "the computed theta_p"},
+                 {"required_theta_u_mrad", theta_p + available - 5.0}, {"note", ""}};
   std::ofstream(copy / "summary.json") << s.dump(2);
   ASSERT_EQ(run(std::string("\"") + ROTCAP_EXE + "\" report \"" + copy.string() + "\" --quiet"), 0);
   for (const char* f : {"curve.svg", "hinge_law.csv", "report.html"}) EXPECT_TRUE(fs::exists(copy / f)) << f;
@@ -226,6 +312,10 @@ TEST(ReportCommand, RemakesTheFilesFromAResultsFolder) {
     EXPECT_EQ(again[law]["theta_first_below_5pct_mrad"].is_null(), first[law]["theta_first_below_5pct_mrad"].is_null());
   }
   EXPECT_NE(read_text(copy / "report.html").find("<polygon"), std::string::npos);
+  EXPECT_NE(read_text(copy / "report.html").find("<td id=\"demand-verdict\">met (margin +5.00 mrad)</td>"), std::string::npos);
+  char line[64];
+  std::snprintf(line, sizeof line, "demand: θu ≥ %.2f mrad (met)", theta_p + available - 5.0);
+  EXPECT_NE(read_text(copy / "curve.svg").find(line), std::string::npos) << line;
   // Not a results folder: exit 2.
   EXPECT_EQ(run(std::string("\"") + ROTCAP_EXE + "\" report \"" + (copy / "no_such").string() + "\" > /dev/null 2>&1"), 2);
 }
