@@ -32,7 +32,7 @@ const char* kStyle =
     "@page{size:A4 portrait;margin:14mm}"
     "@media print{body{margin:0;max-width:none;padding:0;font-size:10pt}"
     ".caution,.boxed,th,pre{background:none}h2{break-after:avoid}"
-    "table,figure,pre,.caution,.boxed{break-inside:avoid}.page-break{break-before:page}}";
+    "figure,pre,.caution,tr{break-inside:avoid}.page-break{break-before:page}}";
 
 }  // namespace
 
