@@ -230,9 +230,11 @@ MomentCurvatureCurve moment_curvature(std::span<const Fibre> fibres, const Uniax
     c.peak_moment = std::max(c.peak_moment, r.M);
   }
   c.max_strain = k_max * z_max + std::abs(eps0);
+  // Rounded for reading (the numbers themselves are in the curve).
   c.message = "moment-curvature: " + std::to_string(fibres.size()) + " fibres, first yield at M = " +
-              num(c.first_yield_moment / 1e6) + " kNm, M = " + num(c.points.back().moment / 1e6) +
-              " kNm at the extreme strain " + num(eps_max);
+              format_text("%.1f", c.first_yield_moment / 1e6) + " kNm, M = " +
+              format_text("%.1f", c.points.back().moment / 1e6) + " kNm at the extreme strain " +
+              format_text("%.3g", eps_max);
   return c;
 }
 
