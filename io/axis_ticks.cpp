@@ -1,5 +1,7 @@
 #include "io/axis_ticks.hpp"
 
+#include "core/text_format.hpp"
+
 #include <algorithm>
 #include <charconv>
 #include <cmath>
@@ -14,14 +16,7 @@ constexpr double kLargest = 1e300;  // larger magnitudes are not drawn (differen
 
 bool drawable(double v) { return std::abs(v) <= kLargest; }  // false for NaN too
 
-/// Fixed-point text of v, locale independent; "-0.00" is printed as "0.00".
-std::string fixed(double v, int decimals) {
-  char buf[64];
-  auto res = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::fixed, decimals);
-  std::string s(buf, res.ptr);
-  if (s.front() == '-' && s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
-  return s;
-}
+std::string fixed(double v, int decimals) { return format_fixed(v, decimals); }
 
 // Heckbert (1990) nicenum: a 1, 2, 5 or 10 times 10^k close to x > 0, rounded or ceiled.
 double nice_number(double x, bool round) {

@@ -1,5 +1,7 @@
 #include "io/svg_plot.hpp"
 
+#include "core/text_format.hpp"
+
 #include "io/xml_text.hpp"
 #include "io/atomic_file.hpp"
 
@@ -25,19 +27,11 @@ constexpr double kCharWidth = 0.6;     // mean glyph advance / font size, for la
 constexpr double kLargest = 1e300;    // larger magnitudes are not drawn (differences stay finite)
 constexpr const char* kHalo =
     " stroke=\"#ffffff\" stroke-width=\"3\" stroke-linejoin=\"round\" paint-order=\"stroke\"";
-constexpr const char* kReplacement = "\xEF\xBF\xBD";  // U+FFFD in UTF-8
 
 bool drawable(double v) { return std::abs(v) <= kLargest; }  // false for NaN too
 bool drawable(double x, double y) { return drawable(x) && drawable(y); }
 
-/// Fixed-point text of v, locale independent; "-0.00" is printed as "0.00".
-std::string fixed(double v, int decimals) {
-  char buf[64];
-  auto res = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::fixed, decimals);
-  std::string s(buf, res.ptr);
-  if (s.front() == '-' && s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
-  return s;
-}
+std::string fixed(double v, int decimals) { return format_fixed(v, decimals); }
 
 std::string px(double v) { return fixed(v, 2); }
 
