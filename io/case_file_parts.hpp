@@ -20,6 +20,8 @@ GroupDof read_group_dof(const toml::node& node, const std::filesystem::path& fil
 /// The whole case from a parsed table (read_case_file, parse_case_text, case_from_echo).
 CaseInput parse_case_table(const toml::table& table, const std::filesystem::path& file);
 
+/// [steel]; needs c.kind.
+void read_steel(TableReader r, CaseInput& c);
 /// [analysis]; needs c.kind.
 void read_analysis(TableReader& table, CaseInput& c);
 /// [model], [[thickness]], [[support]], [[load]] from the root table; needs c.file.
