@@ -135,7 +135,10 @@ StageReport hinge_results_report(const HingeCase& hinge, const HingeCurveResult&
     report.log.push_back("rotation capacity: none (" + r.message + ")");
   }
   if (check) report.log.push_back("demand " + check->verdict + ": " + check->note);
-  report.log.push_back("failure mode: " + failure.mode + " (" + failure.reason + ")");
+  std::string mode_words = failure.mode;  // the identifier as words for the log (summary.json keeps it)
+  for (char& ch : mode_words)
+    if (ch == '_') ch = ' ';
+  report.log.push_back("failure mode: " + mode_words + " (" + failure.reason + ")");
   return report;
 }
 
