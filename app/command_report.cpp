@@ -4,7 +4,7 @@
 //   summary.json      the input echo ("input": section, steel, member, restraints,
 //                     residual_stress, mesh, title) and the reported numbers;
 //   curve.csv         step, load_factor, moment_kNm, rotation_mrad, ... (docs/spec/interface.md);
-//   final_state.json  the deformed mesh at the end (app/hinge_laws_stage.hpp); optional: without
+//   final_state.json  the deformed mesh at the end (io/final_state.hpp); optional: without
 //                     it the page has no picture of the deformed hinge zone.
 // The case is read back from the echo by the case-file reader (case_from_echo) and the hinge-zone
 // model rebuilt (build_hinge_case) for Mp, Mel, theta_p and the classification; the mechanics of the

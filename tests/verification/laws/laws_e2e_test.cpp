@@ -1,4 +1,5 @@
-// End-to-end checks of the hinge-law comparison (app/hinge_laws_stage.hpp) with the rotcap binary:
+// End-to-end checks of the hinge-law comparison (model/laws/hinge_law_comparison.hpp,
+// app/hinge_law_outputs.hpp) with the rotcap binary:
 //  - stocky class 1 cantilever (cases/stocky_cantilever.toml): shell and moment-curvature
 //    integration agree within 5 % of Mp up to 5 theta_p (no local buckling; the integration is
 //    exact beam theory of the same steel, model/laws/hinge_laws.hpp, so this is a two-method check);
