@@ -24,9 +24,11 @@ namespace fs = std::filesystem;
 
 namespace {
 
-/// Mean of a DOF over a group's nodes, from a full displacement vector.
-double group_mean(const ShellModel& model, const GroupDof& g, const Eigen::VectorXd& u) {
-  return rotcap::group_mean(model, g.group, g.dof).value(u);
+/// The recorded curve columns as DOF combinations (group means), built once per run.
+std::vector<DofCombination> recorded_means(const CaseInput& input, const ShellModel& model) {
+  std::vector<DofCombination> out;
+  for (const GroupDof& g : input.analysis.record_dofs) out.push_back(group_mean(model, g.group, g.dof));
+  return out;
 }
 
 std::vector<std::string> curve_columns(const CaseInput& input) {
@@ -72,10 +74,11 @@ int run_general_linear(const CaseInput& input, const ShellModel& model, const fs
     return kExitStoppedEarly;
   }
   const Eigen::VectorXd zero = Eigen::VectorXd::Zero(model.dof_count());
+  const std::vector<DofCombination> means = recorded_means(input, model);
   for (int step = 0; step <= 1; ++step) {
     const Eigen::VectorXd& u = step == 0 ? zero : result.displacements;
     std::vector<double> row{double(step), double(step)};
-    for (const GroupDof& m : input.analysis.record_dofs) row.push_back(group_mean(model, m, u));
+    for (const DofCombination& c : means) row.push_back(c.value(u));
     row.insert(row.end(), {0.0, double(step), 0.0});
     recorder.add_row(row);
   }
@@ -89,7 +92,8 @@ int run_general_linear(const CaseInput& input, const ShellModel& model, const fs
   summary["max_translation_mm"] = max_translation;
   summary["recorded_dofs"] = nlohmann::json::object();
   for (const GroupDof& m : input.analysis.record_dofs)
-    summary["recorded_dofs"][std::string(dof_name(m.dof)) + "@" + m.group] = group_mean(model, m, result.displacements);
+    summary["recorded_dofs"][std::string(dof_name(m.dof)) + "@" + m.group] =
+        group_mean(model, m.group, m.dof).value(result.displacements);
   summary["residual_relative"] = result.backward_error;
   summary["solver"] = {{"factor_nonzeros", s.factor_nonzeros}, {"assembly_s", s.assembly_seconds},
                        {"analysis_s", s.analysis_seconds}, {"factorisation_s", s.factorization_seconds},
@@ -115,7 +119,8 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   setup.landed_reason = "reached the load or displacement limit";
   setup.description = "path following";
   if (a.control == Control::load) setup.options.max_load_factor = a.max_load_factor.value_or(1.0);
-  if (a.control_dof) setup.controlled = rotcap::group_mean(model, a.control_dof->group, a.control_dof->dof);
+  if (a.control_dof) setup.controlled = group_mean(model, a.control_dof->group, a.control_dof->dof);
+  const std::vector<DofCombination> means = recorded_means(input, model);
   if (a.control == Control::displacement) {
     int held = 0;
     free_dof_weights(*setup.controlled, problem.dofs(), &held);
@@ -146,8 +151,9 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
     StepRecord record;
     record.row = {double(step.step), step.load_factor};
     std::string recorded;
-    for (const GroupDof& m : a.record_dofs) {
-      record.row.push_back(group_mean(model, m, u));
+    for (std::size_t i = 0; i < a.record_dofs.size(); ++i) {
+      const GroupDof& m = a.record_dofs[i];
+      record.row.push_back(means[i].value(u));
       recorded += format_text("  %s@%s %.5g", dof_name(m.dof), m.group.c_str(), record.row.back());
     }
     record.row.insert(record.row.end(),

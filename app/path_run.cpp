@@ -38,7 +38,7 @@ PathRunResult run_path(ShellProblem& problem, const ShellModel& model, RunRecord
     recorder.add_row(record.row);
     log_info(record.progress);
     result.last_step = step.step;
-    if (recorder.fields_due(step.step) && !recorder.has_fields(step.step))
+    if (recorder.fields_due(step.step) && !recorder.has_fields(step.step))  // skips the snapshot too
       recorder.write_fields(step.step, step.load_factor, model, u, snapshot_results(problem));
     stop = std::move(record.stop_reason);
     if (!stop && interrupt_requested()) stop = std::string(kInterrupted);
@@ -48,7 +48,7 @@ PathRunResult run_path(ShellProblem& problem, const ShellModel& model, RunRecord
            " free DOFs");
   PathFollower follower(problem, *constraint, setup.options);
   result.path = follower.run(observer);
-  if (!recorder.has_fields(result.last_step))
+  if (!recorder.has_fields(result.last_step))  // skips the snapshot too
     recorder.write_fields(result.last_step, result.path.load_factor, model, problem.displacements(),
                           snapshot_results(problem));
   if (result.path.status != PathStatus::Completed)
