@@ -8,6 +8,9 @@
 #include "app/output_folder.hpp"
 
 #include <ctime>
+#include <fstream>
+#include <limits>
+#include <sstream>
 
 namespace rotcap::app {
 
@@ -24,6 +27,31 @@ nlohmann::json program_json() {
   return {{"name", "rotcap"}, {"version", ROTCAP_VERSION}, {"run_date", date}};
 }
 
+std::string read_case_text(const std::filesystem::path& case_file) {
+  std::ifstream in(case_file, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  return text.str();
+}
+
+namespace {
+
+RunCheckpoint new_run_checkpoint(const std::filesystem::path& folder, const CommandOptions& options, bool hinge) {
+  RunCheckpoint c;
+  c.file = folder / kCheckpointFile;
+  c.base.texts["run.kind"] = hinge ? "hinge" : "general";
+  c.base.texts["case.file"] = std::filesystem::absolute(options.case_file).lexically_normal().string();
+  c.base.texts["case.text"] = read_case_text(options.case_file);
+  c.base.integers["run.threads"] = options.threads;
+  const double none = std::numeric_limits<double>::quiet_NaN();
+  c.base.arrays["run.mesh_scale"] = {options.mesh_scale.value_or(none)};
+  c.base.arrays["run.max_rotation"] = {none};
+  c.base.arrays["run.stop_below"] = {none};
+  return c;
+}
+
+}  // namespace
+
 int command_run(const CommandOptions& options) {
   // 1. Read, validate and build the model before anything is written.
   const BuiltCase built = build_case(options.case_file, options.mesh_scale);
@@ -38,14 +66,15 @@ int command_run(const CommandOptions& options) {
   for (const std::string& line : built.description) log_info(line);
   for (const std::string& line : built.warnings) log_warn(line);
   log_info("caution: " + std::string(kCaution));
-  // 3. The analysis.
+  // 3. The analysis, with a checkpoint after every converged step (rotcap resume).
+  RunCheckpoint checkpoint = new_run_checkpoint(folder, options, built.hinge.has_value());
   int code = kExitOk;
   if (built.hinge)
-    code = run_hinge_study(built.input, *built.hinge, folder, options.threads);
+    code = run_hinge_study(built.input, *built.hinge, folder, options.threads, checkpoint);
   else if (built.input.analysis.control == Control::linear)
     code = run_general_linear(built.input, built.model, folder, options.threads);
   else
-    code = run_general_path(built.input, built.model, folder, options.threads);
+    code = run_general_path(built.input, built.model, folder, options.threads, checkpoint);
   log_info("results in " + folder.string());
   close_log_file();
   return code;

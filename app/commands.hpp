@@ -31,6 +31,9 @@ struct CommandOptions {
   int threads = 0;                              ///< 0: OpenMP default
   std::optional<int> modes;                     ///< buckling -n
   std::optional<double> mesh_scale;             ///< --mesh-scale (generated models only)
+  std::optional<double> max_rotation;           ///< resume --max-rotation [rad]
+  std::optional<double> stop_below;             ///< resume --stop-below
+  bool threads_given = false;                   ///< --threads on the command line
 };
 
 int command_check(const CommandOptions& options);
@@ -41,5 +44,10 @@ int command_demo(const CommandOptions& options);
 /// Re-makes curve.svg, the law comparison, hinge_law.csv and report.html of a results folder
 /// (options.case_file holds the folder) without re-running the analysis.
 int command_report(const CommandOptions& options);
+/// Continues the run of a results folder (options.case_file holds the folder) from its checkpoint,
+/// optionally with a larger max_rotation or a smaller stop_below (extending a finished run).
+int command_resume(const CommandOptions& options);
+/// The text of a case file as it is on disk (empty when unreadable; the reader reports that).
+std::string read_case_text(const std::filesystem::path& case_file);
 
 }  // namespace rotcap::app

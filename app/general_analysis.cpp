@@ -104,7 +104,8 @@ int run_general_linear(const CaseInput& input, const ShellModel& model, const fs
   return kExitOk;
 }
 
-int run_general_path(const CaseInput& input, const ShellModel& model, const fs::path& folder, int threads) {
+int run_general_path(const CaseInput& input, const ShellModel& model, const fs::path& folder, int threads,
+                     RunCheckpoint& checkpoint) {
   const auto t_start = std::chrono::steady_clock::now();
   const AnalysisInput& a = input.analysis;
   const SectionAssignment sections = SectionAssignment::for_steel(model, input.steel, input.layers, false);
@@ -132,20 +133,34 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
     if (a.max_displacement) setup.options.max_control_value = *a.max_displacement;
   }
   if (a.max_load_factor && a.control != Control::load) setup.options.max_load_factor = *a.max_load_factor;
-  // 2. The recorder and the unloaded state as step 0.
-  RunRecorder recorder(folder, curve_columns(input), input.output.fields_every);
+  // 2. The recorder and the unloaded state as step 0 (or the state of the checkpoint to resume).
+  double lambda_max = 0.0;
+  std::optional<RunRecorder> recorder_store;
+  if (checkpoint.resume_from) {
+    setup.resume_from = restore_path_run(problem, *checkpoint.resume_from);
+    lambda_max = checkpoint.resume_from->scalar("general.lambda_max");
+    recorder_store.emplace(folder, curve_columns(input), input.output.fields_every,
+                           recorder_continuation(*checkpoint.resume_from));
+    log_info(format_text("resuming at step %d (load factor %.6g)", setup.resume_from ? setup.resume_from->steps : 0,
+                         setup.resume_from ? setup.resume_from->load_factor : 0.0));
+  } else {
+    recorder_store.emplace(folder, curve_columns(input), input.output.fields_every);
+  }
+  RunRecorder& recorder = *recorder_store;
+  checkpoint.add_study_state = [&lambda_max](CheckpointData& d) { d.arrays["general.lambda_max"] = {lambda_max}; };
+  if (!checkpoint.file.empty()) setup.checkpoint = &checkpoint;
   const Eigen::VectorXd zero = Eigen::VectorXd::Zero(model.dof_count());
-  {
+  if (!checkpoint.resume_from) {
     std::vector<double> row{0.0, 0.0};
     for (std::size_t i = 0; i < a.record_dofs.size(); ++i) row.push_back(0.0);
     row.insert(row.end(), {0.0, 0.0, 0.0});
     recorder.add_row(row);
     recorder.write_fields(0, 0.0, model, zero, ElementResults{});
+    write_start_checkpoint(checkpoint, problem, recorder);
   }
   nlohmann::json summary{{"title", input.title}, {"program", program_json()}, {"input", to_json(input)},
                          {"caution", kCaution}};
   summary["model"] = model_size(model, problem.size());
-  double lambda_max = 0.0;
   // 3. Each converged step: a curve row, a progress line, the stop criteria.
   auto on_step = [&](const ConvergedStep& step, const Eigen::VectorXd& u) {
     StepRecord record;
@@ -178,6 +193,7 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   summary["load_factor_final"] = run.path.load_factor;
   summary["load_factor_max"] = lambda_max;
   summary["solver"] = solver_summary(run.path, problem, model, wall);
+  if (checkpoint.resume_from) summary["resumed_from_step"] = setup.resume_from ? setup.resume_from->steps : 0;
   recorder.write_summary(summary);
   return finish_path(run.path, run.stop_reason, wall);
 }

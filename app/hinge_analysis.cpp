@@ -11,6 +11,7 @@
 #include "core/text_format.hpp"
 #include "io/case_echo.hpp"
 #include "io/final_state.hpp"
+#include "io/input_error.hpp"
 #include "solver/nonlinear/equilibrate.hpp"
 #include "solver/path/path_follower.hpp"
 #include "solver/section_assignment.hpp"
@@ -52,52 +53,118 @@ void apply_axial_load(ShellProblem& problem, const ShellModel& model, const Hing
   problem.set_reference_load(bending);
 }
 
+/// The study's running values in a checkpoint ("hinge.*").
+void put_hinge_state(CheckpointData& d, const std::vector<HingePoint>& curve, double theta0, double m_max,
+                     int peak_step, const Eigen::VectorXd& u_peak) {
+  std::vector<double>& points = d.arrays["hinge.curve"];
+  points.clear();
+  for (const HingePoint& p : curve)
+    points.insert(points.end(), {double(p.step), p.load_factor, p.moment, p.rotation, p.max_plastic_strain,
+                                 double(p.iterations), double(p.negative_pivots)});
+  d.arrays["hinge.theta0"] = {theta0};
+  d.arrays["hinge.m_max"] = {m_max};
+  d.integers["hinge.peak_step"] = peak_step;
+  put_vector(d, "hinge.u_peak", u_peak);
+}
+
+std::vector<HingePoint> hinge_curve_of(const CheckpointData& d) {
+  const std::vector<double>& a = d.array("hinge.curve");
+  std::vector<HingePoint> curve;
+  for (std::size_t i = 0; i + 7 <= a.size(); i += 7)
+    curve.push_back(HingePoint{int(a[i]), a[i + 1], a[i + 2], a[i + 3], a[i + 4], int(a[i + 5]), int(a[i + 6])});
+  return curve;
+}
+
+/// The imperfect geometry of a checkpoint, onto the model built from the case.
+void restore_geometry(ShellModel& model, const CheckpointData& d) {
+  const std::vector<double>& x = d.array("model.nodes");
+  if (x.size() != 3 * model.nodes.size())
+    throw InputError(d.source, 0, "model.nodes", std::to_string(x.size() / 3) + " nodes",
+                     std::to_string(model.nodes.size()) + " nodes, as the case file builds");
+  for (std::size_t n = 0; n < model.nodes.size(); ++n) model.nodes[n] = Eigen::Vector3d(x.data() + 3 * n);
+}
+
 }  // namespace
 
-int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::path& folder, int threads) {
+int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::path& folder, int threads,
+                    RunCheckpoint& checkpoint) {
   const auto t_start = std::chrono::steady_clock::now();
   const HingeZoneModel& zone = hinge.zone;
   const double mp = zone.plastic_moment;
+  const CheckpointData* resume = checkpoint.resume_from ? &*checkpoint.resume_from : nullptr;
   nlohmann::json summary{{"title", input.title}, {"program", program_json()}, {"input", to_json(input)},
                          {"caution", kCaution}};
-  // 1. Imperfections on a copy of the perfect model.
   ShellModel model = zone.model;
-  const StageReport imperfection = apply_imperfections(input, hinge, model, threads);
-  for (const auto& l : imperfection.log) log_info(l);
-  summary["imperfection"] = imperfection.json;
+  if (resume) {
+    const nlohmann::json start = nlohmann::json::parse(resume->text("summary.start"));
+    for (const char* key : {"imperfection", "mesh", "residual_stress"})
+      if (start.contains(key)) summary[key] = start[key];
+    restore_geometry(model, *resume);
+  } else {
+    // 1. Imperfections on a copy of the perfect model.
+    const StageReport imperfection = apply_imperfections(input, hinge, model, threads);
+    for (const auto& l : imperfection.log) log_info(l);
+    summary["imperfection"] = imperfection.json;
+  }
   // 2. Sections and the nonlinear problem; residual stresses and their equilibrium step.
   const SectionAssignment sections = SectionAssignment::for_steel(model, input.steel, input.layers, false);
   ShellProblemOptions po;
   po.threads = threads;
   ShellProblem problem(model, sections, po);
-  summary["mesh"] = {{"nodes", model.node_count()}, {"elements", model.element_count()},
-                     {"free_dofs", problem.size()}, {"flange_elements", input.zone.flange_elements},
-                     {"web_elements", input.zone.web_elements}, {"layers", input.layers.layers}};
   const Eigen::VectorXd bending = reference_load_vector(model);
-  const StageReport residual = apply_residual_stresses(input, hinge, problem);
-  for (const auto& l : residual.log) log_info(l);
-  summary["residual_stress"] = residual.json;
-  if (input.residual_stress != ResidualStressKind::none) {
-    const EquilibrateResult eq = equilibrate(problem, bending.norm());
-    log_info(format_text("residual-stress equilibrium: %s in %d iterations, largest displacement %.3g mm",
-                         eq.converged ? "converged" : "FAILED", eq.iterations, eq.displacement_norm));
-    summary["residual_stress"]["equilibrium_iterations"] = eq.iterations;
-    summary["residual_stress"]["equilibrium_displacement_mm"] = eq.displacement_norm;
-    if (!eq.converged) log_warn("residual stresses could not be equilibrated: " + eq.message);
+  if (!resume) {
+    summary["mesh"] = {{"nodes", model.node_count()}, {"elements", model.element_count()},
+                       {"free_dofs", problem.size()}, {"flange_elements", input.zone.flange_elements},
+                       {"web_elements", input.zone.web_elements}, {"layers", input.layers.layers}};
+    const StageReport residual = apply_residual_stresses(input, hinge, problem);
+    for (const auto& l : residual.log) log_info(l);
+    summary["residual_stress"] = residual.json;
+    if (input.residual_stress != ResidualStressKind::none) {
+      const EquilibrateResult eq = equilibrate(problem, bending.norm());
+      log_info(format_text("residual-stress equilibrium: %s in %d iterations, largest displacement %.3g mm",
+                           eq.converged ? "converged" : "FAILED", eq.iterations, eq.displacement_norm));
+      summary["residual_stress"]["equilibrium_iterations"] = eq.iterations;
+      summary["residual_stress"]["equilibrium_displacement_mm"] = eq.displacement_norm;
+      if (!eq.converged) log_warn("residual stresses could not be equilibrated: " + eq.message);
+    }
+    // 3. The axial load first, then held.
+    if (zone.axial_force > 0.0) apply_axial_load(problem, model, zone, input.analysis.path, bending);
+  } else if (zone.axial_force > 0.0) {
+    problem.set_fixed_load(load_vector(model, model.fixed_loads));
+    problem.set_reference_load(bending);
   }
-  // 3. The axial load first, then held.
-  if (zone.axial_force > 0.0) apply_axial_load(problem, model, zone, input.analysis.path, bending);
   // 4. The bending load traced past the peak; the unloaded (or axially loaded) state is step 0.
-  RunRecorder recorder(folder, kColumns, input.output.fields_every);
   std::vector<HingePoint> curve{HingePoint{}};
-  const Eigen::VectorXd u0 = problem.displacements();
-  recorder.add_row(row_of(curve[0], mp, hinge.theta_p_beam));
-  recorder.write_fields(0, 0.0, model, u0, snapshot_results(problem));
   double m_max = 0.0;
-  Eigen::VectorXd u_peak = u0;
   int peak_step = 0;
+  Eigen::VectorXd u_peak = problem.displacements();
+  double theta0 = zone.rotation.value(u_peak);
   ElementResults peak_results;
-  const double theta0 = zone.rotation.value(u0);
+  std::optional<RunRecorder> recorder_store;
+  std::optional<PathState> resume_path;
+  if (resume) {
+    resume_path = restore_path_run(problem, *resume);
+    const int resumed_step = resume_path ? resume_path->steps : 0;
+    curve = hinge_curve_of(*resume);
+    theta0 = resume->scalar("hinge.theta0");
+    m_max = resume->scalar("hinge.m_max");
+    peak_step = static_cast<int>(resume->integer("hinge.peak_step"));
+    u_peak = vector_of(*resume, "hinge.u_peak");
+    if (peak_step == resumed_step) peak_results = snapshot_results(problem);
+    recorder_store.emplace(folder, kColumns, input.output.fields_every, recorder_continuation(*resume));
+    log_info(format_text("resuming at step %d (load factor %.6g, M/Mp %.4f)", resumed_step,
+                         curve.back().load_factor, curve.back().moment / mp));
+  } else {
+    recorder_store.emplace(folder, kColumns, input.output.fields_every);
+    recorder_store->add_row(row_of(curve[0], mp, hinge.theta_p_beam));
+    recorder_store->write_fields(0, 0.0, model, u_peak, snapshot_results(problem));
+    checkpoint.base.texts["summary.start"] = summary.dump();
+    std::vector<double>& nodes = checkpoint.base.arrays["model.nodes"];
+    for (const Eigen::Vector3d& x : model.nodes) nodes.insert(nodes.end(), x.data(), x.data() + 3);
+  }
+  RunRecorder& recorder = *recorder_store;
+  checkpoint.add_study_state = [&](CheckpointData& d) { put_hinge_state(d, curve, theta0, m_max, peak_step, u_peak); };
+  if (!resume) write_start_checkpoint(checkpoint, problem, recorder);
   auto on_step = [&](const ConvergedStep& step, const Eigen::VectorXd& u) {
     const HingePoint p{step.step, step.load_factor, step.load_factor * zone.moment_per_load_factor,
                        zone.rotation.value(u) - theta0, problem.max_plastic_strain(), step.iterations,
@@ -135,6 +202,8 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   setup.arc_length_form = input.analysis.arc_length_form;
   setup.controlled = zone.rotation;
   setup.description = "tracing the moment-rotation curve";
+  setup.checkpoint = checkpoint.file.empty() ? nullptr : &checkpoint;
+  setup.resume_from = resume_path;
   const PathRunResult run = run_path(problem, model, recorder, setup, on_step);
   if (peak_step > 0 && !recorder.has_fields(peak_step))
     recorder.write_fields(peak_step, curve[peak_step].load_factor, model, u_peak, peak_results);
@@ -163,6 +232,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   summary["stop_reason"] = run.stop_reason;
   summary["message"] = run.path.message;
   summary["solver"] = solver_summary(run.path, problem, model, wall);
+  if (resume) summary["resumed_from_step"] = resume_path ? resume_path->steps : 0;
   recorder.write_summary(summary);
   if (laws) write_hinge_report(input, hinge, points, extraction, *laws, final_mesh, summary, folder);
   return finish_path(run.path, run.stop_reason, wall);

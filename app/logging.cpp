@@ -23,10 +23,10 @@ void setup_console_logging(bool quiet) {
   spdlog::set_default_logger(g_logger);
 }
 
-void add_log_file(const std::filesystem::path& folder) {
+void add_log_file(const std::filesystem::path& folder, bool append) {
   if (!g_logger) setup_console_logging(false);
   close_log_file();
-  g_file = std::make_shared<spdlog::sinks::basic_file_sink_mt>((folder / "run.log").string(), true);
+  g_file = std::make_shared<spdlog::sinks::basic_file_sink_mt>((folder / "run.log").string(), !append);
   g_file->set_level(spdlog::level::info);
   g_file->set_pattern("%v");
   g_logger->sinks().push_back(g_file);

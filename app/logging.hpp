@@ -8,7 +8,8 @@ namespace rotcap::app {
 
 void setup_console_logging(bool quiet);
 /// Adds <folder>/run.log as a second sink (truncates an existing file).
-void add_log_file(const std::filesystem::path& folder);
+/// append: continue an existing run.log (rotcap resume) instead of starting it anew.
+void add_log_file(const std::filesystem::path& folder, bool append = false);
 /// Flushes and detaches the file sink.
 void close_log_file();
 

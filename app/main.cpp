@@ -57,6 +57,12 @@ int main(int argc, char** argv) {
   CLI::App* report = cli.add_subcommand("report", "re-make curve.svg, hinge_law.csv and report.html of a results folder");
   report->add_option("DIR", o.case_file, "results folder of `rotcap run`")->required();
   report->add_flag("--quiet", o.quiet, "print warnings and errors only");
+  CLI::App* resume = cli.add_subcommand("resume", "continue a stopped run from its checkpoint, or extend a finished one");
+  resume->add_option("DIR", o.case_file, "results folder of `rotcap run` (holds checkpoint.h5)")->required();
+  resume->add_option("--max-rotation", o.max_rotation, "new max_rotation [rad] (extends a finished generated-model run)");
+  resume->add_option("--stop-below", o.stop_below, "new stop_below (extends a run that stopped past the peak)");
+  resume->add_option("--threads", o.threads, "OpenMP threads (default: the run's own)")->check(CLI::NonNegativeNumber);
+  resume->add_flag("--quiet", o.quiet, "print warnings and errors only");
   // A first word that is no command and no option: name it and list the commands (CLI11 would say
   // only that a subcommand is required).
   if (argc > 1 && argv[1][0] != '-') {
@@ -78,6 +84,7 @@ int main(int argc, char** argv) {
     const int code = cli.exit(e);
     return code == 0 ? kExitOk : kExitBadInput;
   }
+  o.threads_given = resume->count("--threads") > 0;
   // 2. Logging; SIGINT / SIGTERM stop a path run at its next converged step (app/interrupt.hpp).
   setup_console_logging(o.quiet);
   install_interrupt_handlers();
@@ -88,6 +95,7 @@ int main(int argc, char** argv) {
     if (*buckling) return command_buckling(o);
     if (*demo) return command_demo(o);
     if (*report) return command_report(o);
+    if (*resume) return command_resume(o);
   } catch (const rotcap::InputError& e) {
     std::cerr << "rotcap: error: " << e.what() << "\n";
     return kExitBadInput;

@@ -22,7 +22,8 @@ fs::path prepare_output_folder(const fs::path& case_file, const std::optional<fs
     // Remove only what rotcap writes, so a user's own files in the folder survive.
     for (const char* name : {"curve.csv", "summary.json", "fields.pvd", "fields", "modes.pvd", "modes",
                              "buckling.json", "curve.svg", "run.log", "hinge_law.csv", "report.html",
-                             "displacements.csv", "final_state.json"})
+                             "displacements.csv", "final_state.json", "report.pdf", "checkpoint.h5",
+                             "checkpoint.h5.part"})
       fs::remove_all(folder / name, ec);
   }
   fs::create_directories(folder, ec);

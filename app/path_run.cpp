@@ -32,6 +32,7 @@ PathRunResult run_path(ShellProblem& problem, const ShellModel& model, RunRecord
   const std::unique_ptr<StepConstraint> constraint = make_constraint(problem, setup);
   PathRunResult result;
   std::optional<std::string> stop;
+  PathFollower follower(problem, *constraint, setup.options);
   auto observer = [&](const ConvergedStep& step) {
     const Eigen::VectorXd u = problem.displacements();
     StepRecord record = on_step(step, u);
@@ -40,14 +41,19 @@ PathRunResult run_path(ShellProblem& problem, const ShellModel& model, RunRecord
     result.last_step = step.step;
     if (recorder.fields_due(step.step) && !recorder.has_fields(step.step))  // skips the snapshot too
       recorder.write_fields(step.step, step.load_factor, model, u, snapshot_results(problem));
+    if (setup.checkpoint) write_run_checkpoint(*setup.checkpoint, problem, follower.state(), recorder);
     stop = std::move(record.stop_reason);
     if (!stop && interrupt_requested()) stop = std::string(kInterrupted);
     return !stop.has_value();
   };
   log_info(setup.description + " (" + enum_name(setup.control) + "), " + std::to_string(problem.size()) +
            " free DOFs");
-  PathFollower follower(problem, *constraint, setup.options);
-  result.path = follower.run(observer);
+  if (setup.resume_from) {
+    result.last_step = setup.resume_from->steps;
+    result.path = follower.resume(observer, *setup.resume_from);
+  } else {
+    result.path = follower.run(observer);
+  }
   if (!recorder.has_fields(result.last_step))  // skips the snapshot too
     recorder.write_fields(result.last_step, result.path.load_factor, model, problem.displacements(),
                           snapshot_results(problem));

@@ -4,6 +4,7 @@
 // (load, displacement of a DOF combination, or arc length), and after every converged step adds the
 // caller's curve row, logs the caller's progress line, writes the VTK fields when due and asks the
 // caller whether to stop; the last step's fields are written whatever the outcome.
+#include "app/run_checkpoint.hpp"
 #include "app/run_recorder.hpp"
 #include "io/case_input.hpp"
 #include "solver/nonlinear/shell_problem.hpp"
@@ -26,6 +27,10 @@ struct PathRunSetup {
   /// stop_reason of a path that landed on max_load_factor or max_control_value (empty: "completed").
   std::string landed_reason;
   std::string description;  ///< "tracing the moment-rotation curve", logged with the control
+  /// Checkpoints after every converged step (after its row and fields are written); null: none.
+  const RunCheckpoint* checkpoint = nullptr;
+  /// Set: continue this path (the problem already restored, restore_path_run) instead of starting.
+  std::optional<PathState> resume_from;
 };
 
 /// What the caller makes of one converged step (u: the full displacement vector).

@@ -15,9 +15,23 @@
 
 namespace rotcap::app {
 
+/// Where a resumed run's files stand: the curve rows and field steps of its last checkpoint.
+struct RecorderContinuation {
+  std::size_t rows = 0;          ///< curve.csv rows to keep (step 0 included)
+  std::vector<int> field_steps;  ///< steps whose fields are on disk and in fields.pvd
+};
+
 class RunRecorder {
  public:
   RunRecorder(std::filesystem::path folder, std::vector<std::string> columns, int fields_every);
+  /// Continues the files of a run in folder: curve.csv keeps its first `from.rows` rows, fields.pvd
+  /// lists the `from.field_steps`, and field files of later steps (written after the checkpoint by
+  /// the run that stopped) are removed.
+  RunRecorder(std::filesystem::path folder, std::vector<std::string> columns, int fields_every,
+              const RecorderContinuation& from);
+  /// The steps whose fields are written (for checkpoints).
+  const std::vector<int>& field_steps() const { return written_; }
+  std::size_t rows() const { return csv_.rows(); }
   void add_row(const std::vector<double>& row) { csv_.write_row(row); }
   /// Fields are due on step 0, every fields_every-th step, and whenever forced (peak, end).
   bool fields_due(int step) const { return step % fields_every_ == 0; }

@@ -1,7 +1,10 @@
 #include "io/curve_csv.hpp"
 #include "core/text_format.hpp"
 
+#include "io/atomic_file.hpp"
 #include "io/input_error.hpp"
+
+#include <fstream>
 
 #include <cerrno>
 #include <cmath>
@@ -38,6 +41,31 @@ CurveCsv::CurveCsv(std::filesystem::path file, std::vector<std::string> columns)
   header += "\n";
   if (std::fputs(header.c_str(), stream_) < 0 || std::fflush(stream_) != 0)
     throw OutputError(file_, std::strerror(errno));
+}
+
+CurveCsv::CurveCsv(std::filesystem::path file, std::vector<std::string> columns, std::size_t keep_rows)
+    : file_(std::move(file)), columns_(std::move(columns)) {
+  if (columns_.empty()) throw std::invalid_argument("CurveCsv: no columns");
+  std::string header;
+  for (std::size_t i = 0; i < columns_.size(); ++i) header += (i ? "," : "") + csv_name(columns_[i]);
+  header += "\n";
+  std::ifstream in(file_, std::ios::binary);
+  if (!in) throw InputError(file_, 0, "", "no file", "the curve.csv of the run to continue");
+  std::string kept, line;
+  std::getline(in, line);
+  if (line + "\n" != header) throw InputError(file_, 1, "", "header \"" + line + "\"", "\"" + header.substr(0, header.size() - 1) + "\"");
+  kept = header;
+  while (rows_ < keep_rows && std::getline(in, line) && !in.eof()) {  // a last line without its newline is partial
+    kept += line + "\n";
+    ++rows_;
+  }
+  if (rows_ < keep_rows)
+    throw InputError(file_, 0, "", std::to_string(rows_) + " whole rows",
+                     "at least " + std::to_string(keep_rows) + " (the steps of the checkpoint)");
+  in.close();
+  write_file_atomically(file_, kept);
+  stream_ = std::fopen(file_.c_str(), "a");
+  if (stream_ == nullptr) throw OutputError(file_, std::strerror(errno));
 }
 
 CurveCsv::~CurveCsv() {

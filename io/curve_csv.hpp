@@ -19,6 +19,11 @@ class CurveCsv {
  public:
   /// Creates (truncates) file and writes the header line. columns must not be empty.
   CurveCsv(std::filesystem::path file, std::vector<std::string> columns);
+  /// Continues an existing file (a resumed run): keeps its header, which must name these columns,
+  /// and its first keep_rows rows, drops what follows (rows of steps past the run's last checkpoint,
+  /// a partial last line) and appends after them. Throws InputError when the file is missing, has
+  /// another header or fewer rows.
+  CurveCsv(std::filesystem::path file, std::vector<std::string> columns, std::size_t keep_rows);
   ~CurveCsv();
   CurveCsv(const CurveCsv&) = delete;
   CurveCsv& operator=(const CurveCsv&) = delete;

@@ -14,6 +14,12 @@ namespace rotcap {
 
 PvdCollection::PvdCollection(std::filesystem::path pvd_file) : file_(std::move(pvd_file)) { write(); }
 
+PvdCollection::PvdCollection(std::filesystem::path pvd_file, std::vector<Entry> entries)
+    : file_(std::move(pvd_file)), entries_(std::move(entries)) {
+  std::stable_sort(entries_.begin(), entries_.end(), [](const Entry& a, const Entry& b) { return a.time < b.time; });
+  write();
+}
+
 void PvdCollection::add(double time, const std::filesystem::path& dataset) {
   const std::filesystem::path folder = std::filesystem::absolute(file_).parent_path();
   const std::filesystem::path relative = std::filesystem::absolute(dataset).lexically_relative(folder);

@@ -22,6 +22,8 @@ class PvdCollection {
   /// Writes an empty collection at once (replacing any file of that name).
   explicit PvdCollection(std::filesystem::path pvd_file);
 
+  /// Continues a collection with these entries (a resumed run), rewriting the file at once.
+  PvdCollection(std::filesystem::path pvd_file, std::vector<Entry> entries);
   /// Adds dataset (any path; stored relative to the .pvd's folder) and rewrites the file.
   void add(double time, const std::filesystem::path& dataset);
 

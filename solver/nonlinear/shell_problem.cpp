@@ -38,8 +38,10 @@ ShellProblem::ShellProblem(const ShellModel& model, const SectionAssignment& sec
   }
   history_committed_.assign(history_offset_.back(), LayerState{});
   history_trial_ = history_committed_;
+  history_previous_ = history_committed_;
   alpha_committed_.assign(model_.elements.size(), Eigen::Vector4d::Zero());
   alpha_trial_ = alpha_committed_;
+  alpha_previous_ = alpha_committed_;
   const int n = model_.node_count();
   u_.assign(n, Eigen::Vector3d::Zero());
   u_committed_ = u_;
@@ -126,6 +128,7 @@ void ShellProblem::set_initial_stress(
         const std::size_t i = history_offset_[e] + static_cast<std::size_t>(gp * layers + k);
         history_committed_[i].initial_stress = stress(e, gp, k);
         history_trial_[i].initial_stress = history_committed_[i].initial_stress;
+        history_previous_[i].initial_stress = history_committed_[i].initial_stress;
       }
   }
 }
@@ -174,6 +177,7 @@ EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool fa
   }
   if (!factorise_tangent) return EvaluationStatus::Ok;
   const auto t1 = std::chrono::steady_clock::now();
+  indefinite_before_last_ = indefinite_;
   FactorStatus s = FactorStatus::NotPositiveDefinite;
   if (!indefinite_) {
     s = llt_->factorize(values_);
@@ -237,7 +241,9 @@ void ShellProblem::update(const Eigen::VectorXd& du) {
 void ShellProblem::commit() {
   u_committed_ = u_;
   R_committed_ = R_;
+  std::swap(history_previous_, history_committed_);
   history_committed_ = history_trial_;
+  std::swap(alpha_previous_, alpha_committed_);
   alpha_committed_ = alpha_trial_;
 }
 

@@ -44,6 +44,23 @@ struct ShellProblemOptions {
   int threads = 0;                         ///< assembly threads (0: OpenMP default)
 };
 
+/// The committed state of a ShellProblem in plain arrays: enough to continue a path bit for bit
+/// (checkpoints, see ShellProblem::restore). History entries hold 8 numbers per layer point, in the
+/// order of LayerState: plastic strain (3), equivalent plastic strain, initial stress (3) [MPa],
+/// dissipation [N mm / mm^3].
+struct ShellProblemState {
+  std::vector<double> translations;      ///< u, 3 per node [mm]
+  std::vector<double> rotations;         ///< R, 9 per node (column-major)
+  std::vector<double> history;           ///< of the committed state
+  std::vector<double> history_previous;  ///< of the state committed before it
+  std::vector<double> modes;             ///< incompatible-mode amplitudes, 4 per element
+  std::vector<double> modes_previous;
+  bool indefinite_before_last_evaluation = false;  ///< picks LL^T or LDL^T as the last evaluation did
+  bool indefinite = false;                         ///< picks LL^T or LDL^T for the next evaluation
+  /// factorisations, indefinite factorisations, factorisation s, assembly s, indefinite factorisation s
+  std::vector<double> statistics;
+};
+
 /// Per-element output at the trial (= committed after commit()) state.
 struct ElementSnapshot {
   ShellFrame frame;                        ///< current element frame
@@ -79,6 +96,19 @@ class ShellProblem final : public EquilibriumProblem {
   /// and trial history from stress(element, gauss_point, layer) (residual stresses). Elements with a
   /// stateless section are skipped. Call before the analysis, then equilibrate (see equilibrate.hpp).
   void set_initial_stress(const std::function<Eigen::Vector3d(int element, int gauss_point, int layer)>& stress);
+
+  /// The committed state (after commit(); see ShellProblemState).
+  ShellProblemState state() const;
+  /// Makes `state` the committed state of this problem (same model and sections) and factorises the
+  /// tangent the path follower had factorised there: the last corrector evaluation, at the state's
+  /// configuration from the previous history. The history that evaluation gives must equal the
+  /// stored one bit for bit; otherwise (another build, thread count or BLAS) it returns the largest
+  /// relative difference found, and the problem holds the stored state with the re-evaluated
+  /// tangent. Returns 0 on an exact reproduction. Throws std::invalid_argument on sizes that do not
+  /// fit the model, std::runtime_error when the evaluation fails.
+  /// reevaluate = false: only the committed state is set (no tangent), for a state taken before
+  /// any path step (the path follower then factorises at the committed state itself); returns 0.
+  double restore(const ShellProblemState& state, bool reevaluate = true);
 
   const DofMap& dofs() const { return dofs_; }
   /// Committed nodal displacements, full vector: translations, and rotations as rotation vectors
@@ -116,15 +146,16 @@ class ShellProblem final : public EquilibriumProblem {
   std::unique_ptr<CholmodFactor> llt_, ldlt_;
   CholmodFactor* active_ = nullptr;
   bool indefinite_ = false;
+  bool indefinite_before_last_ = false;  // indefinite_ when the last factorising evaluate() began
   int negative_pivots_ = 0;
   std::string message_;
   // State: trial and committed.
   std::vector<Eigen::Vector3d> u_, u_committed_;
   std::vector<Eigen::Matrix3d> R_, R_committed_;
   std::vector<std::size_t> history_offset_;
-  std::vector<LayerState> history_committed_;
+  std::vector<LayerState> history_committed_, history_previous_;
   mutable std::vector<LayerState> history_trial_;
-  std::vector<Eigen::Vector4d> alpha_committed_;      // incompatible-mode amplitudes per element
+  std::vector<Eigen::Vector4d> alpha_committed_, alpha_previous_;  // incompatible-mode amplitudes per element
   mutable std::vector<Eigen::Vector4d> alpha_trial_;
   Eigen::VectorXd f_ref_, f_fixed_, weights_, f_full_;
   // Skew part of the tangent at moment-loaded nodes (Woodbury correction, see the file comment).

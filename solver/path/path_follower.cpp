@@ -118,6 +118,16 @@ PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constrain
   return Attempt::Diverged;
 }
 
+double PathFollower::next_size(int iterations, double size) const {
+  const int target = options_.target_iterations;
+  double factor = 1.0;
+  if (iterations <= target / 2) factor = 2.0;
+  else if (iterations <= target) factor = 1.25;
+  else if (iterations > 2 * target) factor = std::max(0.5, std::sqrt(double(target) / iterations));
+  return std::clamp(size * factor, options_.min_step_ratio * state_.first_size,
+                    options_.max_step_ratio * state_.first_size);
+}
+
 PathSummary PathFollower::run(const Observer& observer, double lambda0) {
   PathSummary summary;
   lambda_ = lambda0;
@@ -125,10 +135,35 @@ PathSummary PathFollower::run(const Observer& observer, double lambda0) {
   Du_prev_.resize(0);
   if (!factorise_at_committed(summary)) return summary;
   problem_.solve(problem_.reference_load(), du_f_);
-  const double first = options_.first_step * constraint_.measure_of(du_f_);
-  double size = first;
+  state_ = PathState{};
+  state_.first_size = options_.first_step * constraint_.measure_of(du_f_);
+  state_.next_size = state_.first_size;
+  return follow(observer, summary);
+}
+
+PathSummary PathFollower::resume(const Observer& observer, const PathState& from) {
+  PathSummary summary;
+  if (from.total_increment.size() != problem_.size() ||
+      (from.previous_increment.size() != 0 && from.previous_increment.size() != problem_.size())) {
+    summary.status = PathStatus::EvaluationFailed;
+    summary.message = "the path state to resume from is of another problem";
+    return summary;
+  }
+  state_ = from;
+  lambda_ = from.load_factor;
+  u_total_ = from.total_increment;
+  Du_prev_ = from.previous_increment;
+  summary.steps = from.steps;
+  summary.iterations = from.iterations;
+  summary.cutbacks = from.cutbacks;
+  summary.load_factor = from.load_factor;
+  return follow(observer, summary);
+}
+
+PathSummary PathFollower::follow(const Observer& observer, PathSummary summary) {
+  const double first = state_.first_size;
   const double floor = options_.min_step_ratio * first;
-  const double ceiling = options_.max_step_ratio * first;
+  double size = state_.next_size;
   int cutbacks = 0;
   while (summary.steps < options_.max_steps) {
     bool lands = false;
@@ -187,19 +222,21 @@ PathSummary PathFollower::run(const Observer& observer, double lambda0) {
     // that sits on its yield surface (a trial stress exactly on the surface is elastic), which hid
     // the negative pivots past a peak and cost one assembly and factorisation per step.
     record.negative_pivots = problem_.negative_pivots();
+    // --- adapt the step size to the iteration count (before the observer, so that state() is whole)
+    size = next_size(record.iterations, size);
+    state_.load_factor = lambda_;
+    state_.total_increment = u_total_;
+    state_.previous_increment = Du_prev_;
+    state_.next_size = size;
+    state_.steps = summary.steps;
+    state_.iterations = summary.iterations;
+    state_.cutbacks = summary.cutbacks;
     const bool go_on = observer(record);
     if (!go_on || lands) {
       summary.status = PathStatus::Completed;
       summary.message = lands ? "landed on the load or displacement limit" : "stop criterion met";
       return summary;
     }
-    // --- adapt the step size to the iteration count
-    const int target = options_.target_iterations;
-    double factor = 1.0;
-    if (record.iterations <= target / 2) factor = 2.0;
-    else if (record.iterations <= target) factor = 1.25;
-    else if (record.iterations > 2 * target) factor = std::max(0.5, std::sqrt(double(target) / record.iterations));
-    size = std::clamp(size * factor, floor, ceiling);
   }
   summary.status = PathStatus::MaxSteps;
   summary.message = "reached max_steps = " + std::to_string(options_.max_steps);

@@ -68,6 +68,17 @@ struct PathSummary {
   double load_factor = 0.0;
 };
 
+/// Where a path stands after a converged step, with the step size chosen for the next one: enough,
+/// with the problem's committed state, to continue the path as if it had not stopped (checkpoints).
+struct PathState {
+  double load_factor = 0.0;
+  Eigen::VectorXd total_increment;     ///< u - u(start of the run), free DOFs
+  Eigen::VectorXd previous_increment;  ///< the last converged step's increment (empty before the first)
+  double next_size = 0.0;              ///< the size the next step tries, in the constraint's measure
+  double first_size = 0.0;             ///< the first step's size (floor and ceiling are relative to it)
+  int steps = 0, iterations = 0, cutbacks = 0;
+};
+
 class PathFollower {
  public:
   /// Called after each converged step (state committed, tangent factorised there); return false to stop.
@@ -76,6 +87,12 @@ class PathFollower {
   PathFollower(EquilibriumProblem& problem, const StepConstraint& constraint, PathOptions options);
   /// Starts from the committed state of the problem at load factor lambda0.
   PathSummary run(const Observer& observer, double lambda0 = 0.0);
+  /// Continues a path from `from` (a state() taken in an observer of an earlier run). The problem
+  /// must hold the committed state of that step with the tangent factorised there
+  /// (ShellProblem::restore); step numbers and the summary's counts go on from the state's.
+  PathSummary resume(const Observer& observer, const PathState& from);
+  /// The path after the step the observer is called for (the next size already chosen).
+  const PathState& state() const { return state_; }
 
  private:
   enum class Attempt { Converged, Diverged, Failed };
@@ -83,12 +100,15 @@ class PathFollower {
   double landing_size(double size, bool& lands) const;
   Attempt attempt_step(const StepConstraint& constraint, double size, ConvergedStep& record);
   bool converged(double r_norm, double du_norm, double Du_norm) const;
+  PathSummary follow(const Observer& observer, PathSummary summary);
+  double next_size(int iterations, double size) const;
 
   EquilibriumProblem& problem_;
   const StepConstraint& constraint_;
   PathOptions options_;
   double lambda_ = 0.0;
   double ref_norm_ = 1.0;
+  PathState state_;
   // Work vectors, sized once.
   Eigen::VectorXd f_int_, r_, du_r_, du_f_, du_, Du_, Du_prev_, u_total_;
 };

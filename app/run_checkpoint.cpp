@@ -1,0 +1,107 @@
+#include "app/run_checkpoint.hpp"
+
+#include "app/logging.hpp"
+#include "core/text_format.hpp"
+#include "io/input_error.hpp"
+
+namespace rotcap::app {
+
+void put_vector(CheckpointData& data, const std::string& name, const Eigen::VectorXd& v) {
+  data.arrays[name].assign(v.data(), v.data() + v.size());
+}
+
+Eigen::VectorXd vector_of(const CheckpointData& data, const std::string& name) {
+  const std::vector<double>& a = data.array(name);
+  return Eigen::Map<const Eigen::VectorXd>(a.data(), static_cast<Eigen::Index>(a.size()));
+}
+
+CheckpointData checkpoint_of(const RunCheckpoint& run, const ShellProblem& problem, const PathState* path,
+                             const RunRecorder& recorder) {
+  CheckpointData d = run.base;
+  ShellProblemState s = problem.state();
+  d.arrays["problem.translations"] = std::move(s.translations);
+  d.arrays["problem.rotations"] = std::move(s.rotations);
+  d.arrays["problem.history"] = std::move(s.history);
+  d.arrays["problem.history_previous"] = std::move(s.history_previous);
+  d.arrays["problem.modes"] = std::move(s.modes);
+  d.arrays["problem.modes_previous"] = std::move(s.modes_previous);
+  d.arrays["problem.statistics"] = std::move(s.statistics);
+  d.integers["problem.indefinite_before_last_evaluation"] = s.indefinite_before_last_evaluation ? 1 : 0;
+  d.integers["problem.indefinite"] = s.indefinite ? 1 : 0;
+  d.integers["path.started"] = path ? 1 : 0;
+  if (path) {
+    d.arrays["path.load_factor"] = {path->load_factor};
+    put_vector(d, "path.total_increment", path->total_increment);
+    put_vector(d, "path.previous_increment", path->previous_increment);
+    d.arrays["path.next_size"] = {path->next_size};
+    d.arrays["path.first_size"] = {path->first_size};
+    d.integers["path.steps"] = path->steps;
+    d.integers["path.iterations"] = path->iterations;
+    d.integers["path.cutbacks"] = path->cutbacks;
+  }
+  d.integers["recorder.rows"] = static_cast<std::int64_t>(recorder.rows());
+  d.arrays["recorder.field_steps"].assign(recorder.field_steps().begin(), recorder.field_steps().end());
+  if (run.add_study_state) run.add_study_state(d);
+  return d;
+}
+
+void write_run_checkpoint(const RunCheckpoint& run, const ShellProblem& problem, const PathState& path,
+                          const RunRecorder& recorder) {
+  if (run.file.empty()) return;
+  write_checkpoint(run.file, checkpoint_of(run, problem, &path, recorder));
+}
+
+void write_start_checkpoint(const RunCheckpoint& run, const ShellProblem& problem, const RunRecorder& recorder) {
+  if (run.file.empty()) return;
+  write_checkpoint(run.file, checkpoint_of(run, problem, nullptr, recorder));
+}
+
+RecorderContinuation recorder_continuation(const CheckpointData& data) {
+  RecorderContinuation r;
+  r.rows = static_cast<std::size_t>(data.integer("recorder.rows"));
+  for (double step : data.array("recorder.field_steps")) r.field_steps.push_back(static_cast<int>(step));
+  return r;
+}
+
+std::optional<PathState> restore_path_run(ShellProblem& problem, const CheckpointData& data) {
+  ShellProblemState s;
+  s.translations = data.array("problem.translations");
+  s.rotations = data.array("problem.rotations");
+  s.history = data.array("problem.history");
+  s.history_previous = data.array("problem.history_previous");
+  s.modes = data.array("problem.modes");
+  s.modes_previous = data.array("problem.modes_previous");
+  s.statistics = data.array("problem.statistics");
+  s.indefinite_before_last_evaluation = data.integer("problem.indefinite_before_last_evaluation") != 0;
+  s.indefinite = data.integer("problem.indefinite") != 0;
+  const bool started = data.integer("path.started") != 0;
+  double difference = 0.0;
+  try {
+    difference = problem.restore(s, started);
+  } catch (const std::invalid_argument& e) {
+    throw InputError(data.source, 0, "problem", e.what(), "the state of the model the case file builds");
+  }
+  if (!started) {
+    log_info("resume: the start state restored; the path begins again from its first step");
+    return std::nullopt;
+  }
+  if (difference == 0.0)
+    log_info("resume: state restored and the tangent re-evaluated; the history is reproduced to the bit");
+  else
+    log_warn(format_text("resume: the re-evaluated history differs from the checkpoint's by up to %.3g (relative); "
+                         "another build, thread count or BLAS? The run goes on from the stored history, but is "
+                         "not bit-identical to an uninterrupted one",
+                         difference));
+  PathState p;
+  p.load_factor = data.scalar("path.load_factor");
+  p.total_increment = vector_of(data, "path.total_increment");
+  p.previous_increment = vector_of(data, "path.previous_increment");
+  p.next_size = data.scalar("path.next_size");
+  p.first_size = data.scalar("path.first_size");
+  p.steps = static_cast<int>(data.integer("path.steps"));
+  p.iterations = static_cast<int>(data.integer("path.iterations"));
+  p.cutbacks = static_cast<int>(data.integer("path.cutbacks"));
+  return p;
+}
+
+}  // namespace rotcap::app
