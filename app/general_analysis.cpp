@@ -134,6 +134,7 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   }
   if (a.max_load_factor && a.control != Control::load) setup.options.max_load_factor = *a.max_load_factor;
   // 2. The recorder and the unloaded state as step 0 (or the state of the checkpoint to resume).
+  if (input.output.checkpoint_every == 0) checkpoint.file.clear();
   double lambda_max = 0.0;
   std::optional<RunRecorder> recorder_store;
   if (checkpoint.resume_from) {
@@ -149,6 +150,7 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   RunRecorder& recorder = *recorder_store;
   checkpoint.add_study_state = [&lambda_max](CheckpointData& d) { d.arrays["general.lambda_max"] = {lambda_max}; };
   if (!checkpoint.file.empty()) setup.checkpoint = &checkpoint;
+  setup.checkpoint_every = std::max(1, input.output.checkpoint_every);
   const Eigen::VectorXd zero = Eigen::VectorXd::Zero(model.dof_count());
   if (!checkpoint.resume_from) {
     std::vector<double> row{0.0, 0.0};

@@ -92,6 +92,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   const HingeZoneModel& zone = hinge.zone;
   const double mp = zone.plastic_moment;
   const CheckpointData* resume = checkpoint.resume_from ? &*checkpoint.resume_from : nullptr;
+  if (input.output.checkpoint_every == 0) checkpoint.file.clear();
   nlohmann::json summary{{"title", input.title}, {"program", program_json()}, {"input", to_json(input)},
                          {"caution", kCaution}};
   ShellModel model = zone.model;
@@ -203,6 +204,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   setup.controlled = zone.rotation;
   setup.description = "tracing the moment-rotation curve";
   setup.checkpoint = checkpoint.file.empty() ? nullptr : &checkpoint;
+  setup.checkpoint_every = std::max(1, input.output.checkpoint_every);
   setup.resume_from = resume_path;
   const PathRunResult run = run_path(problem, model, recorder, setup, on_step);
   if (peak_step > 0 && !recorder.has_fields(peak_step))

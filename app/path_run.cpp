@@ -41,9 +41,10 @@ PathRunResult run_path(ShellProblem& problem, const ShellModel& model, RunRecord
     result.last_step = step.step;
     if (recorder.fields_due(step.step) && !recorder.has_fields(step.step))  // skips the snapshot too
       recorder.write_fields(step.step, step.load_factor, model, u, snapshot_results(problem));
-    if (setup.checkpoint) write_run_checkpoint(*setup.checkpoint, problem, follower.state(), recorder);
     stop = std::move(record.stop_reason);
     if (!stop && interrupt_requested()) stop = std::string(kInterrupted);
+    if (setup.checkpoint && (stop || step.step % setup.checkpoint_every == 0))
+      write_run_checkpoint(*setup.checkpoint, problem, follower.state(), recorder);
     return !stop.has_value();
   };
   log_info(setup.description + " (" + enum_name(setup.control) + "), " + std::to_string(problem.size()) +

@@ -29,6 +29,7 @@ struct PathRunSetup {
   std::string description;  ///< "tracing the moment-rotation curve", logged with the control
   /// Checkpoints after every converged step (after its row and fields are written); null: none.
   const RunCheckpoint* checkpoint = nullptr;
+  int checkpoint_every = 1;  ///< >= 1: every N converged steps, and at a stop the observer asks for
   /// Set: continue this path (the problem already restored, restore_path_run) instead of starting.
   std::optional<PathState> resume_from;
 };

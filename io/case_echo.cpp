@@ -123,7 +123,7 @@ json to_json(const CaseInput& c) {
   j["mesh"] = mesh;
   j["analysis"] = analysis(c.analysis, c.kind);
   j["buckling"] = {{"modes", c.buckling.modes}};
-  j["output"] = {{"fields_every", c.output.fields_every}};
+  j["output"] = {{"fields_every", c.output.fields_every}, {"checkpoint_every", c.output.checkpoint_every}};
   return c.kind == ModelKind::general ? general_parts(c, std::move(j)) : j;
 }
 

@@ -216,6 +216,9 @@ void read_buckling(TableReader r, CaseInput& c) {
 void read_output(TableReader r, CaseInput& c) {
   c.output.fields_every = r.integer("fields_every", c.output.fields_every);
   r.check("fields_every", c.output.fields_every, c.output.fields_every >= 1, "fields_every >= 1");
+  c.output.checkpoint_every = r.integer("checkpoint_every", c.output.checkpoint_every);
+  r.check("checkpoint_every", c.output.checkpoint_every, c.output.checkpoint_every >= 0,
+          "checkpoint_every >= 0 (0: no checkpoints, rotcap resume then has nothing to continue)");
   r.finish();
 }
 

@@ -114,6 +114,7 @@
 //                             overrides); no shift is needed      4              1 <= n <= 50
 // [output]
 //         fields_every        integer: VTK fields every N converged steps (and at peak and end)
+//         checkpoint_every    integer: checkpoint.h5 every N converged steps and at a stop (0: none)
 //                                                                 5              >= 1
 // [model] (general)
 //         mesh                string: Gmsh MSH 4.1 ASCII file, relative to the case file's folder

@@ -101,6 +101,8 @@ struct BucklingInput {
 
 struct OutputInput {
   int fields_every = 5;  ///< VTK fields every N converged steps (and at peak and end), >= 1
+  /// checkpoint.h5 every N converged steps and at a stop (0: none), >= 0; also at the start state.
+  int checkpoint_every = 1;
 };
 
 struct ModelInput {

@@ -242,5 +242,22 @@ TEST(ResumeGeneral, GeneralModelStoppedBySigtermResumesToTheUninterruptedCurve) 
   EXPECT_NE(read_text(scratch / "again.txt").find("finished"), std::string::npos) << read_text(scratch / "again.txt");
 }
 
+TEST(ResumeGeneral, CheckpointEveryZeroWritesNoCheckpointAndResumeSaysSo) {
+  const fs::path scratch = scratch_folder("resume_general_none");
+  fs::copy_file(source_path("tests/data/nonlinear/strip.msh"), scratch / "strip.msh");
+  std::string text = read_text(source_path("tests/data/nonlinear/cutback.toml"));
+  ASSERT_NE(text.find("[output]"), std::string::npos);
+  text.replace(text.find("[output]"), 8, "[output]\ncheckpoint_every = 0");
+  std::ofstream(scratch / "none.toml") << text;
+  const HingeRun run = run_rotcap("run", scratch / "none.toml", "resume_general_none_run");
+  ASSERT_EQ(run.exit_code, 0) << run.err;
+  EXPECT_FALSE(fs::exists(run.results / "checkpoint.h5"));
+  EXPECT_EQ(read_json(run.results / "summary.json")["input"]["output"]["checkpoint_every"], 0);
+  const pid_t resumed = start_rotcap({"resume", run.results.string()}, scratch / "resume.txt");
+  EXPECT_EQ(wait_exit_code(resumed), 2);
+  EXPECT_NE(read_text(scratch / "resume.txt").find("no checkpoint.h5 in the folder"), std::string::npos)
+      << read_text(scratch / "resume.txt");
+}
+
 }  // namespace
 }  // namespace rotcap::testing
