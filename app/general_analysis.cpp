@@ -195,6 +195,8 @@ int run_general_path(const CaseInput& input, const ShellModel& model, const fs::
   summary["load_factor_final"] = run.path.load_factor;
   summary["load_factor_max"] = lambda_max;
   summary["solver"] = solver_summary(run.path, problem, model, wall);
+  summary["solver"]["checkpoints"] = checkpoint.writes;
+  summary["solver"]["checkpoint_s"] = checkpoint.write_seconds;
   if (checkpoint.resume_from) summary["resumed_from_step"] = setup.resume_from ? setup.resume_from->steps : 0;
   recorder.write_summary(summary);
   return finish_path(run.path, run.stop_reason, wall);

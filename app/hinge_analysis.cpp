@@ -234,6 +234,8 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   summary["stop_reason"] = run.stop_reason;
   summary["message"] = run.path.message;
   summary["solver"] = solver_summary(run.path, problem, model, wall);
+  summary["solver"]["checkpoints"] = checkpoint.writes;
+  summary["solver"]["checkpoint_s"] = checkpoint.write_seconds;
   if (resume) summary["resumed_from_step"] = resume_path ? resume_path->steps : 0;
   recorder.write_summary(summary);
   if (laws) write_hinge_report(input, hinge, points, extraction, *laws, final_mesh, summary, folder);

@@ -4,6 +4,8 @@
 #include "core/text_format.hpp"
 #include "io/input_error.hpp"
 
+#include <chrono>
+
 namespace rotcap::app {
 
 void put_vector(CheckpointData& data, const std::string& name, const Eigen::VectorXd& v) {
@@ -45,15 +47,26 @@ CheckpointData checkpoint_of(const RunCheckpoint& run, const ShellProblem& probl
   return d;
 }
 
+namespace {
+
+void write_timed(const RunCheckpoint& run, const ShellProblem& problem, const PathState* path,
+                 const RunRecorder& recorder) {
+  if (run.file.empty()) return;
+  const auto t0 = std::chrono::steady_clock::now();
+  write_checkpoint(run.file, checkpoint_of(run, problem, path, recorder));
+  run.write_seconds += std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+  ++run.writes;
+}
+
+}  // namespace
+
 void write_run_checkpoint(const RunCheckpoint& run, const ShellProblem& problem, const PathState& path,
                           const RunRecorder& recorder) {
-  if (run.file.empty()) return;
-  write_checkpoint(run.file, checkpoint_of(run, problem, &path, recorder));
+  write_timed(run, problem, &path, recorder);
 }
 
 void write_start_checkpoint(const RunCheckpoint& run, const ShellProblem& problem, const RunRecorder& recorder) {
-  if (run.file.empty()) return;
-  write_checkpoint(run.file, checkpoint_of(run, problem, nullptr, recorder));
+  write_timed(run, problem, nullptr, recorder);
 }
 
 RecorderContinuation recorder_continuation(const CheckpointData& data) {

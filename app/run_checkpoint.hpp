@@ -32,6 +32,10 @@ struct RunCheckpoint {
   std::optional<CheckpointData> resume_from; ///< set: the run continues this checkpoint
   /// The study's running values, added to every checkpoint (set by the study).
   std::function<void(CheckpointData&)> add_study_state;
+  /// Checkpoints written by this process and their wall time [s] (summary.json solver.checkpoints,
+  /// solver.checkpoint_s).
+  mutable int writes = 0;
+  mutable double write_seconds = 0.0;
 };
 
 void put_vector(CheckpointData& data, const std::string& name, const Eigen::VectorXd& v);

@@ -28,6 +28,10 @@ print(f"mesh: {s['mesh']['free_dofs']} free DOFs, {s['solver']['steps']} steps")
 for e in (1, 0):
     print(f"checkpoint_every = {e}: wall " + ", ".join(f"{w:.1f}" for w in walls[e]) + f" s; median {statistics.median(walls[e]):.1f} s")
 print(f"ratio (with / without checkpoints, medians): {statistics.median(walls[1]) / statistics.median(walls[0]):.3f}")
+for r in range(1, reps + 1):
+    v = json.load(open(f"{work}/run_1_{r}/summary.json"))["solver"]
+    print(f"run {r} with checkpoints: {v['checkpoints']} written in {v['checkpoint_s']:.2f} s = "
+          f"{100 * v['checkpoint_s'] / v['wall_s']:.1f} % of its wall time ({1e3 * v['checkpoint_s'] / v['checkpoints']:.0f} ms each)")
 print(f"one checkpoint: {os.path.getsize(f'{work}/run_1_1/checkpoint.h5') / 1e6:.1f} MB")
 same = all(open(f"{work}/run_1_{r}/curve.csv").read() == open(f"{work}/run_0_1/curve.csv").read() for r in range(1, reps + 1))
 print(f"curve.csv identical with and without checkpoints: {same}")

@@ -122,6 +122,10 @@ class ShellProblem final : public EquilibriumProblem {
   /// Snapshot of every element at the committed state (evaluates the elements once).
   std::vector<ElementSnapshot> snapshot() const;
   const CholmodFactor& factor() const;
+  /// The last assembled tangent (K_sym, upper triangle in pattern() order) and its pattern, read
+  /// only (benchmarks time bare factorisations of it).
+  const std::vector<double>& tangent_values() const { return values_; }
+  const SparsePattern& pattern() const { return *pattern_; }
   /// Numeric factorisations and their total wall time, for the solver statistics.
   int factorisations() const { return factorisations_; }
   double factorisation_seconds() const { return factor_seconds_; }
