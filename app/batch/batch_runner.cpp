@@ -4,6 +4,8 @@
 #include "core/text_format.hpp"
 #include "io/atomic_file.hpp"
 
+#include <signal.h>
+
 #include <algorithm>
 #include <chrono>
 #include <map>
@@ -112,6 +114,7 @@ std::vector<CaseOutcome> run_batch(const std::vector<BatchJob>& jobs, const Batc
   int finished_here = 0;
   std::size_t next = 0;
   bool changed = true;
+  bool forwarded = false;
   while (next < queue.size() || !running.empty()) {
     while (next < queue.size() && static_cast<int>(running.size()) < options.workers && !interrupt_requested()) {
       const std::size_t i = queue[next++];
@@ -120,7 +123,13 @@ std::vector<CaseOutcome> run_batch(const std::vector<BatchJob>& jobs, const Batc
       outcomes[i].state = CaseState::running;
       changed = true;
     }
-    if (interrupt_requested() && next < queue.size()) next = queue.size();  // the rest stay queued
+    if (interrupt_requested() && !forwarded) {
+      // The rest stay queued; the running cases (own process groups: the terminal's signal did
+      // not reach them) stop at their next converged step.
+      next = queue.size();
+      for (const Running& r : running) ::kill(r.pid, SIGTERM);
+      forwarded = true;
+    }
     for (auto it = running.begin(); it != running.end();) {
       if (const std::optional<ChildExit> exit = poll_child(it->pid)) {
         const double wall = seconds_since(it->start);

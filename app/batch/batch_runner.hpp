@@ -6,9 +6,9 @@
 // and the ones not started.
 // While it runs it keeps the status table (status.csv in the batch folder: case, state, exit_code,
 // reason, wall_s; rewritten atomically on every change) and prints a progress line with an ETA on
-// every change. SIGINT / SIGTERM (app/interrupt.hpp) stop it from starting more cases; the running
-// ones stop at their next converged step (they get the signal too when it comes from the
-// terminal) and are not counted finished.
+// every change. SIGINT / SIGTERM (app/interrupt.hpp) stop it from starting more cases and are
+// passed on to the running ones (SIGTERM), which stop at their next converged step with
+// stop_reason "interrupted" and are not counted finished.
 #include "app/batch/case_folder.hpp"
 
 #include <filesystem>

@@ -63,6 +63,7 @@ pid_t start_child(const ChildSpec& spec) {
   if (pid == 0) {
     ::prctl(PR_SET_PDEATHSIG, SIGKILL);
     if (::getppid() != parent) ::_exit(127);  // the parent died before prctl took effect
+    ::setpgid(0, 0);  // signals from the terminal reach the batch only, which passes on one
     ::dup2(log, STDOUT_FILENO);
     ::dup2(log, STDERR_FILENO);
     ::execve(argv[0], argv.data(), envp.data());

@@ -4,6 +4,8 @@
 // Contracts:
 //  - The child dies with its parent (prctl PR_SET_PDEATHSIG, SIGKILL, Linux): a batch killed with
 //    kill -9 leaves no case running that a rerun could collide with.
+//  - The child runs in a process group of its own, so Ctrl-C at the terminal reaches the parent
+//    only (which decides what to pass on) and never counts as a second signal in the child.
 //  - Everything the child needs (argv, envp, the log's descriptor) is made before fork; between
 //    fork and exec only async-signal-safe calls run.
 //  - start_child throws std::runtime_error when the log cannot be opened or fork fails; a program
