@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# Throughput of rotcap sweep on the eight coarse cases of bench/data/batch_eight_lengths.toml:
+# Throughput of rotcap sweep on the eight coarse cases of bench/data/batch_eight_flanges.toml:
 # two single-threaded workers (-j 2 --threads 1) against one worker with two threads
 # (-j 1 --threads 2). Prints both wall times, the cases per minute and their ratio; run by
 # bench/run_benchmarks.sh into bench/results/batch_throughput.txt. Needs 2 cores; an idle machine.
@@ -8,14 +8,15 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 build="${1:-build}"
 rotcap="$build/rotcap"
-plan=bench/data/batch_eight_lengths.toml
+plan=bench/data/batch_eight_flanges.toml
 scratch="$(mktemp -d)"
 trap 'rm -rf "$scratch"' EXIT
 export ROTCAP_NO_PDF=1
 sweep() {  # workers threads -> wall seconds
   local start end
   start=$(date +%s.%N)
-  "$rotcap" sweep "$plan" -o "$scratch/w$1_t$2" -j "$1" --threads "$2" > "$scratch/w$1_t$2.txt"
+  "$rotcap" sweep "$plan" -o "$scratch/w$1_t$2" -j "$1" --threads "$2" > "$scratch/w$1_t$2.txt" 2>&1 ||
+    { cat "$scratch/w$1_t$2.txt" >&2; return 1; }
   end=$(date +%s.%N)
   echo "$end - $start" | bc -l
 }

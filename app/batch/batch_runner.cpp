@@ -1,6 +1,7 @@
 #include "app/batch/batch_runner.hpp"
 
 #include "app/interrupt.hpp"
+#include "app/batch/csv_field.hpp"
 #include "core/text_format.hpp"
 #include "io/atomic_file.hpp"
 
@@ -24,13 +25,6 @@ double seconds_since(Clock::time_point t) { return std::chrono::duration<double>
 std::string clock_text(double s) {
   const long total = std::lround(std::max(0.0, s));
   return format_text("%ld:%02ld:%02ld", total / 3600, (total / 60) % 60, total % 60);
-}
-
-std::string csv_field(const std::string& text) {
-  if (text.find_first_of(",\"\n") == std::string::npos) return text;
-  std::string q = "\"";
-  for (char c : text) q += c == '"' ? std::string("\"\"") : std::string(1, c == '\n' ? ' ' : c);
-  return q + "\"";
 }
 
 /// "[sweep] 3/6 finished (2 done, 1 failed), 2 running, 1 queued; elapsed 0:00:12, ETA 0:00:20"

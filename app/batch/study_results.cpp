@@ -1,5 +1,6 @@
 #include "app/batch/study_results.hpp"
 
+#include "app/batch/csv_field.hpp"
 #include "core/text_format.hpp"
 
 #include <algorithm>
@@ -54,13 +55,6 @@ json verdict_json(const ConvergenceVerdict& v) {
   const auto opt = [](const std::optional<double>& x) { return x ? json(*x) : json(nullptr); };
   return {{"converged", v.converged ? json(*v.converged) : json(nullptr)},
           {"m_max_change", opt(v.m_max_change)}, {"r_change", opt(v.r_change)}, {"text", v.text}};
-}
-
-std::string csv_field(const std::string& text) {
-  if (text.find_first_of(",\"\n") == std::string::npos) return text;
-  std::string q = "\"";
-  for (char c : text) q += c == '"' ? std::string("\"\"") : std::string(1, c == '\n' ? ' ' : c);
-  return q + "\"";
 }
 
 std::string json_field(const json& j, std::initializer_list<const char*> path) {

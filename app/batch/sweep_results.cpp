@@ -1,5 +1,6 @@
 #include "app/batch/sweep_results.hpp"
 
+#include "app/batch/csv_field.hpp"
 #include "core/text_format.hpp"
 #include "model/section/section_class.hpp"
 
@@ -8,13 +9,6 @@
 namespace rotcap::app {
 
 namespace {
-
-std::string csv_field(const std::string& text) {
-  if (text.find_first_of(",\"\n") == std::string::npos) return text;
-  std::string q = "\"";
-  for (char c : text) q += c == '"' ? std::string("\"\"") : std::string(1, c == '\n' ? ' ' : c);
-  return q + "\"";
-}
 
 std::string summary_text(const std::optional<nlohmann::json>& s, const std::string& key) {
   if (!s || !s->contains(key) || !(*s)[key].is_string()) return "";
