@@ -1,5 +1,7 @@
 // Sweep plans without runs: grid and zip expansion, the case text of each combination as the case
-// reader reads it, and the bad plans (exit 2 material: the message names plan, key and value).
+// reader reads it, the bad plans (exit 2 material: the message names plan, key and value), and the
+// imperfection keys the study sets (mode, sign).
+#include "io/case_file.hpp"
 #include "io/case_overrides.hpp"
 #include "io/input_error.hpp"
 #include "io/sweep_plan.hpp"
@@ -102,4 +104,45 @@ TEST(CaseOverrides, RemovalAndNumbersReadBackExactly) {
   const std::string text = apply_case_overrides("[imperfection]\nmode = 2\n[steel]\nfy = 1\n", "base.toml", o);
   EXPECT_EQ(text.find("mode = 2"), std::string::npos) << text;
   EXPECT_NE(text.find("fy = 0.30000000000000004"), std::string::npos) << text;
+}
+
+// imperfection.mode and imperfection.sign, the keys the study's variants set (io/case_file.hpp).
+namespace {
+
+std::string case_error(const std::string& imperfection) {
+  const std::string text = "[section]\ndesignation = \"IPE 120\"\n[steel]\nfy = 355.0\nfu = 490.0\n"
+                           "[member]\nsetup = \"cantilever\"\nlength = 480.0\n[imperfection]\n" + imperfection;
+  try {
+    parse_case_text(text, "imperfection_case.toml");
+  } catch (const InputError& e) {
+    return e.what();
+  }
+  return "";
+}
+
+}  // namespace
+
+TEST(ImperfectionKeys, ModeAndSignAreReadAndDefaultToTheLowestModeAsComputed) {
+  const std::string base = "[section]\ndesignation = \"IPE 120\"\n[steel]\nfy = 355.0\nfu = 490.0\n"
+                           "[member]\nsetup = \"cantilever\"\nlength = 480.0\n";
+  const CaseInput plain = parse_case_text(base, "plain.toml");
+  EXPECT_EQ(plain.imperfection.mode, 1);
+  EXPECT_EQ(plain.imperfection.sign, 1);
+  const CaseInput set = parse_case_text(base + "[imperfection]\nmode = 3\nsign = -1\n", "set.toml");
+  EXPECT_EQ(set.imperfection.mode, 3);
+  EXPECT_EQ(set.imperfection.sign, -1);
+  const CaseInput half = parse_case_text(base + "[imperfection]\nlocal = \"half_sine\"\nsign = -1\n", "half.toml");
+  EXPECT_EQ(half.imperfection.sign, -1);
+}
+
+TEST(ImperfectionKeys, BadValuesNameTheKeyAndWhatIsExpected) {
+  std::string e = case_error("sign = 0\n");
+  EXPECT_NE(e.find("imperfection.sign: found 0; expected 1 (the pattern as computed) or -1 (reversed)"), std::string::npos) << e;
+  e = case_error("mode = 0\n");
+  EXPECT_NE(e.find("imperfection.mode: found 0; expected an integer >= 1"), std::string::npos) << e;
+  e = case_error("local = \"half_sine\"\nmode = 2\n");
+  EXPECT_NE(e.find("imperfection.mode"), std::string::npos) << e;
+  EXPECT_NE(e.find("only with local = \"buckling_mode\""), std::string::npos) << e;
+  e = case_error("local = \"none\"\nsign = -1\n");
+  EXPECT_NE(e.find("imperfection.sign"), std::string::npos) << e;
 }
