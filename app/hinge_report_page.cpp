@@ -57,7 +57,7 @@ void write_hinge_report(const CaseInput& input, const HingeCase& hinge, const st
   const ReportInputs in{input, hinge, pts, r, set, mesh, summary};
   const LinePlot plot = hinge_curve_plot(input.title, pts, r, set, hinge.zone.plastic_moment, summary);
   write_svg(plot, folder / "curve.svg");
-  const bool pdf_expected = find_on_path("chromium").has_value();
+  const bool pdf_expected = pdf_printer().has_value();
   ReportPage page;
   page.title = input.title.empty() ? "Plastic hinge: moment-rotation report" : input.title;
   page.subtitle = "Moment-rotation capacity of a steel I-beam plastic hinge from a nonlinear shell model";

@@ -1,6 +1,7 @@
 #include "app/hinge_stages.hpp"
 
 #include "app/logging.hpp"
+#include "core/option_error.hpp"
 #include "core/text_format.hpp"
 #include "model/patterns/imperfection.hpp"
 #include "model/patterns/residual_stress_field.hpp"
@@ -39,24 +40,31 @@ StageReport apply_imperfections(const CaseInput& input, const HingeCase& hinge, 
     const SectionAssignment sections = SectionAssignment::for_steel(zone.model, input.steel, input.layers, true);
     BucklingOptions bo;
     bo.prebuckling.threads = threads;
-    const int n_modes = std::max(4, input.buckling.modes);
+    // The n-th local mode (imperfection.mode) needs room for the global modes in between.
+    const int n_modes = std::max({4, input.buckling.modes, imp.mode == 1 ? 0 : imp.mode + 3});
     const BucklingResult b = solve_linear_buckling(zone.model, sections, n_modes, bo);
     report.json["buckling_load_factors"] = b.load_factors;
     report.json["buckling_status"] = buckling_status_name(b.status);
     ModeImperfectionOptions mo;
     mo.amplitude = 1.0;
+    mo.local_mode = imp.mode;
     const ModeImperfection picked = buckling_mode_imperfection(zone, b.modes, mo);
     report.log.push_back("imperfection: " + picked.message);
     if (picked.found) {
       const double amplitude = imp.local_amplitude.resolve(base_length(imp.local_amplitude, hinge, picked.classification));
-      for (std::size_t i = 0; i < offsets.size(); ++i) offsets[i] += amplitude * picked.offsets[i];
+      for (std::size_t i = 0; i < offsets.size(); ++i) offsets[i] += (imp.sign * amplitude) * picked.offsets[i];
       report.json["mode"] = picked.mode + 1;
+      report.json["local_mode"] = imp.mode;
+      report.json["sign"] = imp.sign;
       report.json["mode_load_factor"] = b.load_factors[picked.mode];
       report.json["mode_classification"] = deformation_mode_name(picked.classification);
       report.json["local_amplitude_mm"] = amplitude;
       report.json["buckle_x_mm"] = picked.distortion_x;
       report.log.push_back(format_text("imperfection: buckling mode %.0f (load factor %.4g) scaled to %.3g mm", picked.mode + 1.0,
                                b.load_factors[picked.mode], amplitude));
+    } else if (imp.mode > 1) {
+      throw OptionError("imperfection.mode", std::to_string(imp.mode),
+                        "a local mode that exists: " + picked.message + "; raise [buckling] modes or lower imperfection.mode");
     } else {
       log_warn("no local buckling mode among the " + std::to_string(b.modes.size()) +
                " lowest modes; the half-sine pattern is used instead");
@@ -69,8 +77,9 @@ StageReport apply_imperfections(const CaseInput& input, const HingeCase& hinge, 
     HalfSineOptions ho;
     ho.flange_amplitude = imp.local_amplitude.resolve(base_length(imp.local_amplitude, hinge, DeformationMode::flange_local_buckling));
     const NodeOffsets local = half_sine_imperfection(zone, ho);
-    for (std::size_t i = 0; i < offsets.size(); ++i) offsets[i] += local[i];
+    for (std::size_t i = 0; i < offsets.size(); ++i) offsets[i] += imp.sign * local[i];
     report.json["local_amplitude_mm"] = ho.flange_amplitude;
+    report.json["sign"] = imp.sign;
     report.log.push_back(format_text("imperfection: half-sine flange pattern, tip amplitude %.3g mm", ho.flange_amplitude));
   }
   {

@@ -2,6 +2,7 @@
 // The command line, as numbered steps: 1. parse, 2. set up logging, 3. run the command,
 // 4. map failures to exit codes (2 bad input: InputError or OptionError; 3 stopped early;
 // 1 internal error: anything else, failed ROTCAP_CHECKs included).
+#include "app/batch/batch_commands.hpp"
 #include "app/commands.hpp"
 #include "app/interrupt.hpp"
 #include "app/logging.hpp"
@@ -63,6 +64,8 @@ int main(int argc, char** argv) {
   resume->add_option("--stop-below", o.stop_below, "new stop_below (extends a run that stopped past the peak)");
   resume->add_option("--threads", o.threads, "OpenMP threads (default: the run's own)")->check(CLI::NonNegativeNumber);
   resume->add_flag("--quiet", o.quiet, "print warnings and errors only");
+  BatchCommands batch;  // sweep, study (app/batch/)
+  add_batch_commands(cli, batch);
   // A first word that is no command and no option: name it and list the commands (CLI11 would say
   // only that a subcommand is required).
   if (argc > 1 && argv[1][0] != '-') {
@@ -96,6 +99,7 @@ int main(int argc, char** argv) {
     if (*demo) return command_demo(o);
     if (*report) return command_report(o);
     if (*resume) return command_resume(o);
+    if (batch.chosen()) return batch.run();
   } catch (const rotcap::InputError& e) {
     std::cerr << "rotcap: error: " << e.what() << "\n";
     return kExitBadInput;

@@ -22,8 +22,9 @@ constexpr int kOutstandElementsForRotations = 9;
 
 /// The scaled counts of --mesh-scale; returns the log line.
 std::string scale_mesh(HingeZoneSpec& mesh, double factor) {
-  const int flange = std::max(4, 2 * static_cast<int>(std::lround(0.5 * factor * mesh.flange_elements)));
-  const int web = std::max(4, static_cast<int>(std::lround(factor * mesh.web_elements)));
+  const MeshCounts scaled = scaled_mesh_counts(mesh.flange_elements, mesh.web_elements, factor);
+  const int flange = scaled.flange_elements;
+  const int web = scaled.web_elements;
   const std::string line = format_text("mesh scaled by %g (--mesh-scale): flange_elements %d -> %d, web_elements %d -> %d",
                                        factor, mesh.flange_elements, flange, mesh.web_elements, web);
   mesh.flange_elements = flange;
@@ -32,6 +33,11 @@ std::string scale_mesh(HingeZoneSpec& mesh, double factor) {
 }
 
 }  // namespace
+
+MeshCounts scaled_mesh_counts(int flange_elements, int web_elements, double factor) {
+  return {std::max(4, 2 * static_cast<int>(std::lround(0.5 * factor * flange_elements))),
+          std::max(4, static_cast<int>(std::lround(factor * web_elements)))};
+}
 
 BuiltCase build_case(const std::filesystem::path& case_file, std::optional<double> mesh_scale) {
   BuiltCase built;

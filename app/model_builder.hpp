@@ -21,6 +21,15 @@ struct BuiltCase {
   std::vector<std::string> warnings;     ///< advice `check` and `run` print as warnings
 };
 
+/// The counts --mesh-scale F makes of [mesh] flange_elements and web_elements: flange F x n rounded
+/// to the nearest even count, web F x n rounded, both at least 4 (also what `rotcap study`'s mesh
+/// variant writes into its case file).
+struct MeshCounts {
+  int flange_elements = 0;
+  int web_elements = 0;
+};
+MeshCounts scaled_mesh_counts(int flange_elements, int web_elements, double factor);
+
 /// mesh_scale (the --mesh-scale option): [mesh] flange_elements and web_elements of a generated
 /// model times the factor, rounded to the nearest even / integer count and at least 4, recorded in
 /// the description (and so in run.log); InputError for a general model, whose mesh is its own.

@@ -70,11 +70,20 @@ int run_with_timeout(const std::vector<std::string>& args, double timeout_s, boo
 
 }  // namespace
 
+std::optional<fs::path> pdf_printer() {
+  const char* off = std::getenv("ROTCAP_NO_PDF");
+  if (off && *off) return std::nullopt;
+  return find_on_path("chromium");
+}
+
 PdfResult print_report_pdf(const fs::path& html, const fs::path& pdf, double timeout_s) {
   std::error_code ec;
   fs::remove(pdf, ec);
-  const auto chromium = find_on_path("chromium");
-  if (!chromium) return {PdfResult::Status::no_chromium, "report.pdf not made: no chromium on PATH (report.html prints from a browser)"};
+  const auto chromium = pdf_printer();
+  if (!chromium)
+    return {PdfResult::Status::no_chromium, find_on_path("chromium")
+                                                ? "report.pdf not made: ROTCAP_NO_PDF is set (report.html prints from a browser)"
+                                                : "report.pdf not made: no chromium on PATH (report.html prints from a browser)"};
   std::string profile_template = (fs::temp_directory_path(ec) / "rotcap-pdf-XXXXXX").string();
   if (ec || ::mkdtemp(profile_template.data()) == nullptr)
     return {PdfResult::Status::failed, "report.pdf not made: no temporary folder for the browser profile"};

@@ -24,6 +24,10 @@ struct PdfResult {
 /// The full path of `name` found in PATH (an executable regular file), or nothing.
 std::optional<std::filesystem::path> find_on_path(const std::string& name);
 
+/// The Chromium that prints report.pdf: find_on_path("chromium"), or nothing when the environment
+/// variable ROTCAP_NO_PDF is set (non-empty): the batch runner sets it for its cases (app/batch/),
+/// so a sweep of hundreds of cases does not start a browser for each.
+std::optional<std::filesystem::path> pdf_printer();
 /// Prints html to pdf with headless Chromium; timeout_s > 0.
 PdfResult print_report_pdf(const std::filesystem::path& html, const std::filesystem::path& pdf, double timeout_s = 120.0);
 

@@ -21,3 +21,4 @@ run() {
 }
 run linear_plate "$build/bench/bench_linear_plate"
 run demo bench/demo_bench.sh "$build"
+run batch_throughput bench/batch_throughput.sh "$build"

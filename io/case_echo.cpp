@@ -113,6 +113,11 @@ json to_json(const CaseInput& c) {
                        {"global_amplitude", amplitude(c.imperfection.global_amplitude)}};
   if (c.imperfection.local != LocalImperfection::none)
     imperfection["local_amplitude"] = amplitude(c.imperfection.local_amplitude);
+  // mode and sign only when not the defaults, so the echo of a case without them is unchanged.
+  if (c.imperfection.local == LocalImperfection::buckling_mode && c.imperfection.mode != 1)
+    imperfection["mode"] = c.imperfection.mode;
+  if (c.imperfection.local != LocalImperfection::none && c.imperfection.sign != 1)
+    imperfection["sign"] = c.imperfection.sign;
   j["imperfection"] = imperfection;
   json mesh = {{"layers", c.layers.layers}};
   if (c.kind == ModelKind::generated) {

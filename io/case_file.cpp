@@ -170,6 +170,18 @@ void read_imperfection(TableReader r, CaseInput& c) {
     r.forbid("local_amplitude", "no local_amplitude with local = \"none\"");
   else
     im.local_amplitude = read_amplitude(r, "local_amplitude", im.local_amplitude, c.kind);
+  if (im.local == LocalImperfection::buckling_mode) {
+    im.mode = r.integer("mode", im.mode);
+    r.check("mode", im.mode, im.mode >= 1, "an integer >= 1 (1: the lowest local buckling mode)");
+  } else {
+    r.forbid("mode", "mode only with local = \"buckling_mode\"");
+  }
+  if (im.local == LocalImperfection::none) {
+    r.forbid("sign", "no sign with local = \"none\"");
+  } else {
+    im.sign = r.integer("sign", im.sign);
+    r.check("sign", im.sign, im.sign == 1 || im.sign == -1, "1 (the pattern as computed) or -1 (reversed)");
+  }
   im.global_amplitude = read_amplitude(r, "global_amplitude", im.global_amplitude, c.kind);
   r.finish();
 }

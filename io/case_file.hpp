@@ -65,6 +65,13 @@
 //         local_amplitude     number [mm] or "S/n" with S = b (width of the buckled plate),
 //                             h (section depth) or L (member length); general models: number only;
 //                             not with local = "none"             "b/200"        >= 0; n > 0
+//         mode                integer (local = "buckling_mode" only): which local buckling mode,
+//                             1 = the lowest mode classified as flange or web local buckling,
+//                             2 the next, ...; [buckling] modes are raised to mode + 3 when fewer
+//                                                                 1              >= 1
+//         sign                integer (not with local = "none"): 1 the local pattern as computed,
+//                             -1 reversed (a buckling mode's sign is arbitrary)
+//                                                                 1              1 or -1
 //         global_amplitude    as local_amplitude                  "L/1000" (general: 0)
 // [residual_stress] (generated)
 //         pattern             "none" | "hot_rolled" | "welded"    "none"

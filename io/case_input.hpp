@@ -71,6 +71,8 @@ struct ImperfectionInput {
   LocalImperfection local = LocalImperfection::buckling_mode;  ///< general models: none
   Amplitude local_amplitude{Amplitude::Kind::ratio, 0.0, "b", 200.0, "b/200"};
   Amplitude global_amplitude{Amplitude::Kind::ratio, 0.0, "L", 1000.0, "L/1000"};  ///< general: 0
+  int mode = 1;  ///< buckling_mode: the n-th LOCAL mode (1 = the lowest local one), >= 1
+  int sign = 1;  ///< +1 or -1: the local pattern as computed or reversed (not with local = none)
 };
 
 /// A DOF of a group (the group mean for recorded curve columns).

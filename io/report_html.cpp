@@ -64,10 +64,15 @@ std::string render_report_html(const ReportPage& page) {
         for (const std::string& c : t.header) h += "<th>" + esc(c) + "</th>";
         h += "</tr>\n";
       }
-      for (const auto& row : t.rows) {
+      for (std::size_t k = 0; k < t.rows.size(); ++k) {
+        const auto& row = t.rows[k];
+        const std::string link = k < t.row_links.size() ? t.row_links[k] : std::string();
         h += "<tr>";
-        for (const ReportCell& c : row)
-          h += (c.id.empty() ? std::string("<td>") : "<td id=\"" + safe_id(c.id) + "\">") + esc(c.text) + "</td>";
+        for (std::size_t i = 0; i < row.size(); ++i) {
+          const ReportCell& c = row[i];
+          h += (c.id.empty() ? std::string("<td>") : "<td id=\"" + safe_id(c.id) + "\">") +
+               (i == 0 && !link.empty() ? "<a href=\"" + esc(link) + "\">" + esc(c.text) + "</a>" : esc(c.text)) + "</td>";
+        }
         h += "</tr>\n";
       }
       h += "</table>\n";

@@ -1,6 +1,8 @@
 #pragma once
 // ReportPage: one self-contained HTML5 page (report.html) — inline CSS, inline SVG, no script, no
 // external resource of any kind (no link, img src, font or URL), so it opens offline and prints.
+// The one exception: a table row may link to a file beside the page (ReportTable::row_links, e.g. an
+// index page to each case's report); the page itself never loads it.
 // No mechanics: the caller hands over text, tables and ready SVG elements.
 //
 // Contract:
@@ -35,6 +37,9 @@ struct ReportTable {
   std::string caption;
   std::vector<std::string> header;
   std::vector<std::vector<ReportCell>> rows;
+  /// Optional: row_links[k], when not empty, makes the first cell of row k a link to that file
+  /// beside the page (a relative path; the page never loads it).
+  std::vector<std::string> row_links;
 };
 
 struct ReportSection {

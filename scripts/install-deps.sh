@@ -4,7 +4,7 @@
 set -euo pipefail
 packages=(build-essential cmake libeigen3-dev libsuitesparse-dev libopenblas-dev libvtk9-dev
           libspdlog-dev libtomlplusplus-dev libcli11-dev nlohmann-json3-dev libspectra-dev
-          libgtest-dev libhdf5-dev chromium poppler-utils)
+          libgtest-dev libhdf5-dev chromium poppler-utils libopenmpi-dev openmpi-bin)
 missing=()
 for p in "${packages[@]}"; do
   dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")

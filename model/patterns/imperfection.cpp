@@ -135,8 +135,10 @@ ModeImperfection buckling_mode_imperfection(const HingeZoneModel& hinge, std::sp
   const SectionDeformationAnalysis analysis(hinge);
   const double h = analysis.geometry().h();
   const Eigen::Index n_nodes = hinge.model.node_count();
+  require(o.local_mode >= 1, "imperfection.mode", o.local_mode, "an integer >= 1");
   ModeImperfection r;
   std::string list;
+  int local_seen = 0;
   for (std::size_t k = 0; k < modes.size(); ++k) {
     const Eigen::VectorXd& phi = modes[k];
     ROTCAP_CHECK(phi.size() == kDofsPerNode * n_nodes,
@@ -154,7 +156,7 @@ ModeImperfection buckling_mode_imperfection(const HingeZoneModel& hinge, std::sp
     r.classifications.push_back(mode);
     list += (k ? ", " : "") + std::to_string(k) + " " + deformation_mode_name(mode);
     const bool local = mode == DeformationMode::flange_local_buckling || mode == DeformationMode::web_local_buckling;
-    if (!local) continue;
+    if (!local || ++local_seen < o.local_mode) continue;
     // The distortion is linear in the field: D(phi) = D(scaled) * largest / h.
     const double D =
         (mode == DeformationMode::flange_local_buckling ? shape.flange.value : shape.web.value) * largest / h;
@@ -172,8 +174,9 @@ ModeImperfection buckling_mode_imperfection(const HingeZoneModel& hinge, std::sp
                 num(o.amplitude) + " mm at x = " + num(at.x) + " mm; modes examined: " + list;
     return r;
   }
-  r.message =
-      "no local mode among the " + std::to_string(modes.size()) + " modes: " + (list.empty() ? "none given" : list);
+  r.message = (o.local_mode == 1 ? std::string("no local mode") : "no local mode number " + std::to_string(o.local_mode) +
+                                                                         " (found " + std::to_string(local_seen) + ")") +
+              " among the " + std::to_string(modes.size()) + " modes: " + (list.empty() ? "none given" : list);
   return r;
 }
 

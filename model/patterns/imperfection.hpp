@@ -43,7 +43,8 @@
 //   lambda / 2 (else std::invalid_argument), so a node lies within lambda / 4 of every crest.
 //
 // Buckling-mode local imperfection: the first mode (in the order given, lowest load factor first)
-// that section_deformation classifies as flange or web local buckling, scaled so that its largest
+// that section_deformation classifies as flange or web local buckling (or the n-th such mode,
+// ModeImperfectionOptions::local_mode), scaled so that its largest
 // out-of-plane plate distortion (relative to the section's rigid motion at that station, as
 // defined in model/patterns/section_deformation.hpp) equals the amplitude. Each mode is classified after
 // normalising its largest nodal translation to h, so the none threshold (none_ratio h) is relative.
@@ -91,6 +92,7 @@ NodeOffsets half_sine_imperfection(const HingeZoneModel& hinge, const HalfSineOp
 
 struct ModeImperfectionOptions {
   double amplitude = 0.0;  ///< largest plate distortion after scaling [mm], > 0
+  int local_mode = 1;      ///< take the n-th local mode in the order given (1: the first), >= 1
   ClassifyOptions classify;
 };
 
