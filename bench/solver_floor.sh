@@ -18,9 +18,9 @@ max_rotation="$(sed -n 's/^max_rotation *= *\([0-9.]*\).*/\1/p' "$case_file")"
 "$build/rotcap" run "$case_file" -o "$work/whole" --quiet
 sed "s/^max_rotation *= *[0-9.]*/max_rotation = 0.008/" cases/carpark_girder.toml > "$work/pre.toml"
 "$build/rotcap" run "$work/pre.toml" -o "$work/pre" --quiet
-"$build/bench/bench_solver_floor" "$work/pre" "$repeats" > "$work/pre_floor.json"
+"$build/bench/bench_solver_floor" "$work/pre" "$repeats" | tail -n 1 > "$work/pre_floor.json"
 "$build/rotcap" resume "$work/pre" --max-rotation "$max_rotation" --quiet
-"$build/bench/bench_solver_floor" "$work/pre" "$repeats" > "$work/post_floor.json"
+"$build/bench/bench_solver_floor" "$work/pre" "$repeats" | tail -n 1 > "$work/post_floor.json"
 python3 - "$work" <<'PY'
 import json, sys
 w = sys.argv[1]
