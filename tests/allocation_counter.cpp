@@ -1,21 +1,24 @@
-// Interposes the C heap allocation functions for the test executable and counts the calls while an
-// AllocationCounter is alive (allocation_counter.hpp). glibc exports its own implementations as
-// __libc_malloc etc., which the wrappers forward to; free() is not wrapped.
+// Counts the heap allocations of the test executable while an AllocationCounter is alive
+// (allocation_counter.hpp). Plain builds interpose the C heap allocation functions and forward to
+// glibc's own implementations (__libc_malloc etc.); free() is not wrapped. AddressSanitizer
+// builds install the sanitizer's malloc hook instead, which sees every allocation of its
+// allocator (malloc, calloc, realloc, aligned allocations, operator new).
 
-#include "tests/corotational/allocation_counter.hpp"
+#include "tests/allocation_counter.hpp"
 
 #include <cerrno>
 #include <cstddef>
 
-extern "C" {
-void* __libc_malloc(std::size_t size);
-void* __libc_calloc(std::size_t count, std::size_t size);
-void* __libc_realloc(void* pointer, std::size_t size);
-void* __libc_memalign(std::size_t alignment, std::size_t size);
-}
+#if defined(__SANITIZE_ADDRESS__)
+#define ROTCAP_ALLOCATIONS_BY_HOOK 1
+#elif defined(__has_feature)
+#if __has_feature(address_sanitizer)
+#define ROTCAP_ALLOCATIONS_BY_HOOK 1
+#endif
+#endif
 
 namespace {
-// Plain globals: the wrappers may run before static initialisation and from any context.
+// Plain globals: the counting functions may run before static initialisation and from any context.
 long g_allocations = 0;
 int g_active = 0;
 inline void count_one() {
@@ -23,7 +26,23 @@ inline void count_one() {
 }
 }  // namespace
 
+#if defined(ROTCAP_ALLOCATIONS_BY_HOOK)
+// The sanitizers' allocator interface (LLVM compiler-rt, sanitizer/allocator_interface.h; GCC's
+// libasan exports it without shipping the header).
+extern "C" int __sanitizer_install_malloc_and_free_hooks(void (*malloc_hook)(const volatile void*, std::size_t),
+                                                         void (*free_hook)(const volatile void*));
+namespace {
+void on_malloc(const volatile void*, std::size_t) { count_one(); }
+void on_free(const volatile void*) {}
+const bool g_hooks_installed = __sanitizer_install_malloc_and_free_hooks(on_malloc, on_free) != 0;
+}  // namespace
+#else
 extern "C" {
+void* __libc_malloc(std::size_t size);
+void* __libc_calloc(std::size_t count, std::size_t size);
+void* __libc_realloc(void* pointer, std::size_t size);
+void* __libc_memalign(std::size_t alignment, std::size_t size);
+
 void* malloc(std::size_t size) {
   count_one();
   return __libc_malloc(size);
@@ -52,10 +71,16 @@ int posix_memalign(void** out, std::size_t alignment, std::size_t size) {
   return 0;
 }
 }
+#endif
 
 namespace rotcap::testing {
 
-AllocationCounter::AllocationCounter() : start_(g_allocations) { ++g_active; }
+AllocationCounter::AllocationCounter() : start_(g_allocations) {
+#if defined(ROTCAP_ALLOCATIONS_BY_HOOK)
+  (void)g_hooks_installed;
+#endif
+  ++g_active;
+}
 AllocationCounter::~AllocationCounter() { --g_active; }
 long AllocationCounter::count() const { return g_allocations - start_; }
 
