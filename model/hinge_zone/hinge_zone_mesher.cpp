@@ -42,6 +42,19 @@ void validate(const HingeZoneSpec& s) {
            "an even number >= 4 (the web meets the flange at its centre line)");
   if (s.web_elements < 4) reject("mesh.web_elements", std::to_string(s.web_elements), ">= 4");
   if (!(s.aspect > 0.0) || !std::isfinite(s.aspect)) reject("mesh.aspect", num(s.aspect), "a finite value > 0");
+  // Estimate of the element count (build_hinge_zone: hinge element length he = aspect b / nf,
+  // stations at most 3 he apart, about max(h, b) / he more in the hinge region of 1.5 max(h, b)),
+  // in floating point so that no count overflows.
+  const double he = s.aspect * s.section.b / s.flange_elements;
+  const double stations = (L / 3.0 + std::max(s.section.h, s.section.b)) / he;
+  const double elements = stations * (2.0 * s.flange_elements + s.web_elements);
+  if (!(elements <= kMaxHingeZoneElements))
+    reject("mesh.flange_elements",
+           std::to_string(s.flange_elements) + " with web_elements = " + std::to_string(s.web_elements) +
+               ", aspect = " + num(s.aspect) + " and length = " + num(L) + " mm (about " + num(elements) +
+               " shell elements)",
+           "a model of at most " + num(kMaxHingeZoneElements) +
+               " shell elements (fewer elements across the section, a larger aspect or a shorter member)");
   if (setup.needs_load_spacing()) {
     if (!(s.load_spacing > 0.0 && s.load_spacing < L))
       reject("member.load_spacing", num(s.load_spacing) + " mm",

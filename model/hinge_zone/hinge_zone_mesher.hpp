@@ -60,6 +60,12 @@ namespace rotcap {
 /// "member.stiffeners[k]" (k from 0),
 /// "member.stiffener_thickness", "restraints.lateral[k].x", "mesh.flange_elements",
 /// "mesh.web_elements", "mesh.aspect", "steel.fy", or a "section.*" key from validate()).
+/// The mesh must also stay below kMaxHingeZoneElements shell elements by an estimate (stations
+/// at most 3 hinge element lengths apart over the member, more in the hinge region, times the
+/// section's 2 flange_elements + web_elements), reported at "mesh.flange_elements": a longer
+/// member or a denser or more slender mesh would exhaust memory (or loop for hours) while building
+/// and factorising the model.
+inline constexpr double kMaxHingeZoneElements = 1.0e6;
 void validate(const HingeZoneSpec& spec);
 
 /// Builds the model (validates the spec first).

@@ -9,7 +9,7 @@
 
 #include "elements/corotational/corotational_kinematics.hpp"
 #include "elements/corotational/rotation.hpp"
-#include "tests/corotational/allocation_counter.hpp"
+#include "tests/allocation_counter.hpp"
 #include "tests/corotational/corotational_test_support.hpp"
 #include "tests/test_support.hpp"
 

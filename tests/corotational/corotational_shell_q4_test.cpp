@@ -12,7 +12,7 @@
 #include "elements/corotational/corotational_shell_q4.hpp"
 #include "elements/corotational/rotation.hpp"
 #include "materials/elastic_shell_section.hpp"
-#include "tests/corotational/allocation_counter.hpp"
+#include "tests/allocation_counter.hpp"
 #include "tests/corotational/corotational_test_support.hpp"
 #include "tests/test_support.hpp"
 

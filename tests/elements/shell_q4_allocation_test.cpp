@@ -1,25 +1,16 @@
-// ShellQ4::compute must not touch the heap (fixed-size Eigen kernels only). The test counts calls
-// to malloc made by this thread while compute() runs, by interposing malloc in the test
-// executable and forwarding to glibc's allocator (glibc only; skipped elsewhere).
+// ShellQ4::compute must not touch the heap (fixed-size Eigen kernels only). The test counts the
+// allocations made while compute() runs (tests/allocation_counter.hpp: glibc or AddressSanitizer
+// only; skipped elsewhere).
 #include "elements/shell_q4.hpp"
 #include "materials/elastic_shell_section.hpp"
+#include "tests/allocation_counter.hpp"
 
 #include <gtest/gtest.h>
 
-#include <cstddef>
-
 #if defined(__GLIBC__)
 namespace {
-thread_local bool counting = false;
-thread_local long allocations = 0;
 double* volatile probe = nullptr;
 }  // namespace
-
-extern "C" void* __libc_malloc(std::size_t size);
-extern "C" void* malloc(std::size_t size) {
-  if (counting) ++allocations;
-  return __libc_malloc(size);
-}
 #endif
 
 namespace rotcap {
@@ -65,24 +56,27 @@ TEST(ShellQ4, ComputeDoesNotAllocate) {
   ShellQ4Resultants out;
   // Warm-up outside the counted region, then count.
   ASSERT_EQ(element.compute(d, elastic, {}, {}, f, &k, &out), ElementStatus::Ok);
-  allocations = 0;
-  counting = true;
-  const ElementStatus s1 = element.compute(d, elastic, {}, {}, f, &k, &out);
-  const ElementStatus s2 = element.compute(d, nonlinear, {}, {}, f, &k, &out);
-  const ElementStatus s3 = element.compute(d, nonlinear, {}, {}, f, nullptr);
-  const Mat24 kg = element.geometric_stiffness({out.r[0].head<3>(), out.r[1].head<3>(), out.r[2].head<3>(),
-                                                out.r[3].head<3>()});
-  counting = false;
-  EXPECT_EQ(s1, ElementStatus::Ok);
-  EXPECT_EQ(s2, ElementStatus::Ok);
-  EXPECT_EQ(s3, ElementStatus::Ok);
-  EXPECT_TRUE(kg.allFinite());
+  long allocations = 0;
+  {
+    const testing::AllocationCounter counter;
+    const ElementStatus s1 = element.compute(d, elastic, {}, {}, f, &k, &out);
+    const ElementStatus s2 = element.compute(d, nonlinear, {}, {}, f, &k, &out);
+    const ElementStatus s3 = element.compute(d, nonlinear, {}, {}, f, nullptr);
+    const Mat24 kg = element.geometric_stiffness({out.r[0].head<3>(), out.r[1].head<3>(), out.r[2].head<3>(),
+                                                  out.r[3].head<3>()});
+    allocations = counter.count();
+    EXPECT_EQ(s1, ElementStatus::Ok);
+    EXPECT_EQ(s2, ElementStatus::Ok);
+    EXPECT_EQ(s3, ElementStatus::Ok);
+    EXPECT_TRUE(kg.allFinite());
+  }
   EXPECT_EQ(allocations, 0);
   // Positive control: the counter does see an allocation made through operator new.
-  allocations = 0;
-  counting = true;
-  probe = new double[4];  // stored in a volatile global so the pair cannot be elided
-  counting = false;
+  {
+    const testing::AllocationCounter counter;
+    probe = new double[4];  // stored in a volatile global so the pair cannot be elided
+    allocations = counter.count();
+  }
   delete[] probe;
   EXPECT_GE(allocations, 1);
 #endif
