@@ -35,6 +35,15 @@ std::string finished_stop_reason(const fs::path& folder) {
   return summary["stop_reason"].get<std::string>();
 }
 
+/// Whether the options move the stop criterion a run ended on (a larger max_rotation, a smaller
+/// stop_below).
+bool extends(const std::string& reason, const CaseInput& was, const CommandOptions& o) {
+  if (reason == "rotation reached max_rotation") return o.max_rotation && *o.max_rotation > was.analysis.max_rotation;
+  if (reason.rfind("moment fell below", 0) == 0 || reason.rfind("load factor fell below", 0) == 0)
+    return o.stop_below && *o.stop_below < was.analysis.stop_below;
+  return false;
+}
+
 /// A run that ended by itself is continued only past the stop criterion the options move: a larger
 /// max_rotation or a smaller stop_below. Runs stopped by a signal (or killed: no summary) resume.
 void require_extension(const fs::path& folder, const std::string& reason, const CaseInput& was,
@@ -77,8 +86,18 @@ int command_resume(const CommandOptions& options) {
   if (const auto v = stored_override(data, "run.max_rotation")) built.input.analysis.max_rotation = *v;
   if (const auto v = stored_override(data, "run.stop_below")) built.input.analysis.stop_below = *v;
   // 2. What the options change.
-  const std::string finished = finished_stop_reason(folder);
-  if (!finished.empty()) require_extension(folder, finished, built.input, options);
+  // The stop reason decided at the checkpoint's step (empty: the path was going on, or stopped by a
+  // signal or a kill); summary.json has it too once the outputs were written.
+  const auto stored = data.texts.find("path.stop_reason");
+  std::string finished = stored == data.texts.end() ? std::string() : stored->second;
+  if (finished.empty()) finished = finished_stop_reason(folder);
+  std::optional<std::string> finish_only;
+  if (!finished.empty() && finished != "interrupted") {
+    if (fs::exists(folder / "summary.json"))
+      require_extension(folder, finished, built.input, options);  // exit 2 unless extended
+    else if (!extends(finished, built.input, options))
+      finish_only = finished;  // killed after its last step, before its outputs: write them
+  }
   if (options.max_rotation) {
     if (!built.hinge) throw InputError(folder, 0, "--max-rotation", "a general model", "a generated hinge-zone model");
     if (!(*options.max_rotation > 0.0 && *options.max_rotation <= 1.0))
@@ -106,6 +125,7 @@ int command_resume(const CommandOptions& options) {
   checkpoint.file = folder / kCheckpointFile;
   checkpoint.base = data;
   checkpoint.resume_from = std::move(data);
+  checkpoint.finish_only = finish_only;
   const int code = built.hinge ? run_hinge_study(built.input, *built.hinge, folder, threads, checkpoint)
                                : run_general_path(built.input, built.model, folder, threads, checkpoint);
   log_info("results in " + folder.string());

@@ -44,12 +44,19 @@ PathRunResult run_path(ShellProblem& problem, const ShellModel& model, RunRecord
     stop = std::move(record.stop_reason);
     if (!stop && interrupt_requested()) stop = std::string(kInterrupted);
     if (setup.checkpoint && (stop || step.step % setup.checkpoint_every == 0))
-      write_run_checkpoint(*setup.checkpoint, problem, follower.state(), recorder);
+      write_run_checkpoint(*setup.checkpoint, problem, follower.state(), recorder, stop.value_or(""));
     return !stop.has_value();
   };
   log_info(setup.description + " (" + enum_name(setup.control) + "), " + std::to_string(problem.size()) +
            " free DOFs");
-  if (setup.resume_from) {
+  if (setup.resume_from && setup.checkpoint && setup.checkpoint->finish_only) {
+    const PathState& s = *setup.resume_from;
+    result.last_step = s.steps;
+    result.path = {PathStatus::Completed, "stop criterion met", s.steps, s.iterations, s.cutbacks, s.load_factor};
+    stop = *setup.checkpoint->finish_only;
+    log_info("resume: the run had met its stop criterion at step " + std::to_string(s.steps) +
+             " (" + *stop + "); writing its outputs");
+  } else if (setup.resume_from) {
     result.last_step = setup.resume_from->steps;
     result.path = follower.resume(observer, *setup.resume_from);
   } else {

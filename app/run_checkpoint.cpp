@@ -50,10 +50,12 @@ CheckpointData checkpoint_of(const RunCheckpoint& run, const ShellProblem& probl
 namespace {
 
 void write_timed(const RunCheckpoint& run, const ShellProblem& problem, const PathState* path,
-                 const RunRecorder& recorder) {
+                 const RunRecorder& recorder, const std::string& stop_reason) {
   if (run.file.empty()) return;
   const auto t0 = std::chrono::steady_clock::now();
-  write_checkpoint(run.file, checkpoint_of(run, problem, path, recorder));
+  CheckpointData d = checkpoint_of(run, problem, path, recorder);
+  d.texts["path.stop_reason"] = stop_reason;
+  write_checkpoint(run.file, d);
   run.write_seconds += std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
   ++run.writes;
 }
@@ -61,12 +63,12 @@ void write_timed(const RunCheckpoint& run, const ShellProblem& problem, const Pa
 }  // namespace
 
 void write_run_checkpoint(const RunCheckpoint& run, const ShellProblem& problem, const PathState& path,
-                          const RunRecorder& recorder) {
-  write_timed(run, problem, &path, recorder);
+                          const RunRecorder& recorder, const std::string& stop_reason) {
+  write_timed(run, problem, &path, recorder, stop_reason);
 }
 
 void write_start_checkpoint(const RunCheckpoint& run, const ShellProblem& problem, const RunRecorder& recorder) {
-  write_timed(run, problem, nullptr, recorder);
+  write_timed(run, problem, nullptr, recorder, "");
 }
 
 RecorderContinuation recorder_continuation(const CheckpointData& data) {

@@ -30,6 +30,9 @@ struct RunCheckpoint {
   std::filesystem::path file;                ///< empty: no checkpoints
   CheckpointData base;                       ///< written with every checkpoint (case, options)
   std::optional<CheckpointData> resume_from; ///< set: the run continues this checkpoint
+  /// Set: the checkpoint's step had met this stop criterion and nothing extends it; the resumed run
+  /// takes no step and only writes the outputs (a kill after the last checkpoint, before them).
+  std::optional<std::string> finish_only;
   /// The study's running values, added to every checkpoint (set by the study).
   std::function<void(CheckpointData&)> add_study_state;
   /// Checkpoints written by this process and their wall time [s] (summary.json solver.checkpoints,
@@ -49,8 +52,9 @@ CheckpointData checkpoint_of(const RunCheckpoint& run, const ShellProblem& probl
 /// first step can be resumed too (nothing when run.file is empty).
 void write_start_checkpoint(const RunCheckpoint& run, const ShellProblem& problem, const RunRecorder& recorder);
 /// Writes checkpoint_of(...) to run.file (nothing when run.file is empty).
+/// stop_reason: what the step handler decided at this step (empty: go on), kept as path.stop_reason.
 void write_run_checkpoint(const RunCheckpoint& run, const ShellProblem& problem, const PathState& path,
-                          const RunRecorder& recorder);
+                          const RunRecorder& recorder, const std::string& stop_reason);
 
 RecorderContinuation recorder_continuation(const CheckpointData& data);
 /// Restores the problem's state and tangent from data (ShellProblem::restore; a state that the

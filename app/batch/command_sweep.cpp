@@ -14,13 +14,7 @@ int command_sweep(const BatchCommandOptions& options) {
   // 1. The plan, every case validated, before anything runs or is written.
   const SweepSetup setup = prepare_sweep(options);
   // 2. The cases, N at a time; finished ones (an earlier run) are skipped.
-  BatchOptions batch;
-  batch.workers = worker_count(options.workers);
-  batch.threads_per_case = options.threads;
-  batch.pdf = options.pdf;
-  batch.program = own_executable();
-  batch.status_csv = setup.folder / "status.csv";
-  batch.label = "sweep";
+  const BatchOptions batch = sweep_batch_options(options, setup);
   std::cout << "[sweep] " << setup.jobs.size() << " cases from " << options.file.string() << " into "
             << setup.folder.string() << ", " << batch.workers << " at a time, " << batch.threads_per_case
             << " thread(s) each\n";

@@ -116,14 +116,7 @@ int command_sweep_mpi(const BatchCommandOptions& options) {
   if (rank != 0) setup = prepare_sweep(options, false);
   // 2. The cases.
   if (ranks == 1) {
-    BatchOptions batch;
-    batch.workers = worker_count(options.workers);
-    batch.threads_per_case = options.threads;
-    batch.pdf = options.pdf;
-    batch.program = own_executable();
-    batch.status_csv = setup.folder / "status.csv";
-    batch.label = "sweep";
-    return finish_sweep(setup, run_batch(setup.jobs, batch, std::cout));
+    return finish_sweep(setup, run_batch(setup.jobs, sweep_batch_options(options, setup), std::cout));
   }
   if (rank != 0) {
     worker(setup, options);

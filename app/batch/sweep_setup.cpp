@@ -40,4 +40,15 @@ int finish_sweep(const SweepSetup& s, const std::vector<CaseOutcome>& outcomes) 
   return all_done ? kExitOk : kExitStoppedEarly;
 }
 
+BatchOptions sweep_batch_options(const BatchCommandOptions& options, const SweepSetup& setup) {
+  BatchOptions batch;
+  batch.workers = worker_count(options.workers);
+  batch.threads_per_case = options.threads;
+  batch.pdf = options.pdf;
+  batch.program = own_executable();
+  batch.status_csv = setup.folder / "status.csv";
+  batch.label = "sweep";
+  return batch;
+}
+
 }  // namespace rotcap::app

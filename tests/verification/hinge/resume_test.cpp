@@ -67,6 +67,17 @@ void expect_consistent_folder(const fs::path& results, const std::string& contex
 
 /// Each test makes its own uninterrupted reference run (ctest runs the tests as separate processes,
 /// possibly at the same time, so they share no folder).
+/// Lines in a results folder's curve.csv so far (header included; 0 before it exists).
+long curve_lines(const fs::path& results) {
+  const std::string csv = read_text(results / "curve.csv");
+  return std::count(csv.begin(), csv.end(), '\n');
+}
+
+/// `rotcap run` of the class4_flange case into results, started in the background.
+pid_t start_class4_run(const fs::path& results, const fs::path& out) {
+  return start_rotcap({"run", hinge_case("class4_flange.toml").string(), "-o", results.string(), "--threads", "1"}, out);
+}
+
 class Resume : public ::testing::Test {
  protected:
   void SetUp() override {
@@ -81,14 +92,9 @@ TEST_F(Resume, SigtermThenResumeGivesTheUninterruptedCurveToTheBit) {
   ASSERT_EQ(reference_->exit_code, 0) << reference_->err;
   const std::string reference_csv = read_text(reference_->results / "curve.csv");
   const fs::path scratch = scratch_folder("resume_sigterm"), results = scratch / "results";
-  const pid_t pid = start_rotcap({"run", hinge_case("class4_flange.toml").string(), "-o", results.string(),
-                                  "--threads", "1"}, scratch / "out.txt");
+  const pid_t pid = start_class4_run(results, scratch / "out.txt");
   const auto t0 = std::chrono::steady_clock::now();
-  auto rows = [&results] {
-    const std::string csv = read_text(results / "curve.csv");
-    return std::count(csv.begin(), csv.end(), '\n');
-  };
-  while (rows() < 8 && std::chrono::steady_clock::now() - t0 < std::chrono::seconds(60))
+  while (curve_lines(results) < 8 && std::chrono::steady_clock::now() - t0 < std::chrono::seconds(60))
     std::this_thread::sleep_for(std::chrono::milliseconds(20));
   kill(pid, SIGTERM);
   ASSERT_EQ(wait_exit_code(pid), 3) << read_text(scratch / "out.txt");
@@ -125,15 +131,10 @@ TEST_F(Resume, KillNineAtTwentyRandomMomentsLeavesWholeFilesAndResumeFinishesThe
     const fs::path scratch = scratch_folder("resume_kill_" + std::to_string(trial)), results = scratch / "results";
     const long rows_wanted = step_of(random) + 2;
     const double delay = within(random);
-    const pid_t pid = start_rotcap({"run", hinge_case("class4_flange.toml").string(), "-o", results.string(),
-                                    "--threads", "1"}, scratch / "out.txt");
+    const pid_t pid = start_class4_run(results, scratch / "out.txt");
     const auto t0 = std::chrono::steady_clock::now();
-    auto rows = [&results] {
-      const std::string csv = read_text(results / "curve.csv");
-      return std::count(csv.begin(), csv.end(), '\n');
-    };
     // Before the start checkpoint (written after step 0's row and fields) there is nothing to resume.
-    while ((rows() < rows_wanted || !fs::exists(results / "checkpoint.h5")) &&
+    while ((curve_lines(results) < rows_wanted || !fs::exists(results / "checkpoint.h5")) &&
            std::chrono::steady_clock::now() - t0 < std::chrono::seconds(60))
       std::this_thread::sleep_for(std::chrono::milliseconds(2));
     std::this_thread::sleep_for(std::chrono::duration<double>(delay));
@@ -178,6 +179,24 @@ TEST(ResumeExtension, FinishedRunExtendedWithLargerMaxRotationEqualsARunMadeWith
   const nlohmann::json s = read_json(first.results / "summary.json");
   EXPECT_EQ(s["stop_reason"], "rotation reached max_rotation");
   EXPECT_EQ(s["input"]["analysis"]["max_rotation"], 0.036);
+}
+
+TEST_F(Resume, RunKilledAfterItsLastStepBeforeItsOutputsOnlyWritesThem) {
+  // The last checkpoint holds the step at which the stop criterion was met; a kill before
+  // summary.json leaves the run finished in all but its outputs. Resume must take no further step.
+  ASSERT_EQ(reference_->exit_code, 0) << reference_->err;
+  const fs::path scratch = scratch_folder("resume_outputs_only");
+  fs::copy(reference_->results, scratch / "results", fs::copy_options::recursive);
+  for (const char* name : {"summary.json", "report.html", "report.pdf", "curve.svg", "hinge_law.csv"})
+    fs::remove(scratch / "results" / name);
+  const pid_t resumed = start_rotcap({"resume", (scratch / "results").string()}, scratch / "resume.txt");
+  ASSERT_EQ(wait_exit_code(resumed), 0) << read_text(scratch / "resume.txt");
+  EXPECT_EQ(read_text(scratch / "results" / "curve.csv"), read_text(reference_->results / "curve.csv"));
+  const nlohmann::json s = read_json(scratch / "results" / "summary.json"), r = read_json(reference_->results / "summary.json");
+  EXPECT_EQ(s["stop_reason"], r["stop_reason"]);
+  EXPECT_EQ(s["m_max_kNm"], r["m_max_kNm"]);
+  EXPECT_EQ(s["solver"]["steps"], r["solver"]["steps"]);
+  EXPECT_NE(read_text(scratch / "results" / "run.log").find("writing its outputs"), std::string::npos);
 }
 
 TEST_F(Resume, DamagedCheckpointOrChangedCaseIsBadInputNamingTheFile) {
