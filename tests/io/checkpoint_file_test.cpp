@@ -44,7 +44,8 @@ TEST(CheckpointFile, RoundTripKeepsEveryEntryToTheBit) {
   for (const auto& [name, a] : in.arrays) {
     const std::vector<double>& b = out.array(name);
     ASSERT_EQ(a.size(), b.size()) << name;
-    EXPECT_EQ(std::memcmp(a.data(), b.data(), a.size() * sizeof(double)), 0) << name;  // NaN and -0 too
+    if (!a.empty())  // memcmp of the null data() of an empty vector is undefined, even for 0 bytes
+      EXPECT_EQ(std::memcmp(a.data(), b.data(), a.size() * sizeof(double)), 0) << name;  // NaN and -0 too
   }
   EXPECT_EQ(out.integers, in.integers);
   EXPECT_EQ(out.texts, in.texts);
