@@ -37,10 +37,14 @@ std::string finished_stop_reason(const fs::path& folder) {
 
 /// Whether the options move the stop criterion a run ended on (a larger max_rotation, a smaller
 /// stop_below).
+bool is_rotation_stop(const std::string& reason) { return reason == "rotation reached max_rotation"; }
+bool is_fall_stop(const std::string& reason) {
+  return reason.rfind("moment fell below", 0) == 0 || reason.rfind("load factor fell below", 0) == 0;
+}
+
 bool extends(const std::string& reason, const CaseInput& was, const CommandOptions& o) {
-  if (reason == "rotation reached max_rotation") return o.max_rotation && *o.max_rotation > was.analysis.max_rotation;
-  if (reason.rfind("moment fell below", 0) == 0 || reason.rfind("load factor fell below", 0) == 0)
-    return o.stop_below && *o.stop_below < was.analysis.stop_below;
+  if (is_rotation_stop(reason)) return o.max_rotation && *o.max_rotation > was.analysis.max_rotation;
+  if (is_fall_stop(reason)) return o.stop_below && *o.stop_below < was.analysis.stop_below;
   return false;
 }
 
@@ -48,20 +52,16 @@ bool extends(const std::string& reason, const CaseInput& was, const CommandOptio
 /// max_rotation or a smaller stop_below. Runs stopped by a signal (or killed: no summary) resume.
 void require_extension(const fs::path& folder, const std::string& reason, const CaseInput& was,
                        const CommandOptions& o) {
-  if (reason == "interrupted") return;
-  if (reason == "rotation reached max_rotation") {
-    if (o.max_rotation && *o.max_rotation > was.analysis.max_rotation) return;
+  if (reason == "interrupted" || extends(reason, was, o)) return;
+  if (is_rotation_stop(reason))
     throw InputError(folder, 0, "--max-rotation",
                      o.max_rotation ? format_text("%g rad", *o.max_rotation) : std::string("none"),
                      format_text("a rotation above the run's max_rotation = %g rad: the run is finished (%s)",
                                  was.analysis.max_rotation, reason.c_str()));
-  }
-  if (reason.rfind("moment fell below", 0) == 0 || reason.rfind("load factor fell below", 0) == 0) {
-    if (o.stop_below && *o.stop_below < was.analysis.stop_below) return;
+  if (is_fall_stop(reason))
     throw InputError(folder, 0, "--stop-below", o.stop_below ? format_text("%g", *o.stop_below) : std::string("none"),
                      format_text("a fraction below the run's stop_below = %g: the run is finished (%s)",
                                  was.analysis.stop_below, reason.c_str()));
-  }
   throw InputError(folder / "summary.json", 0, "stop_reason", "a finished run (" + reason + ")",
                    "a run stopped by Ctrl-C, a signal or a crash; or a finished generated-model run extended "
                    "with --max-rotation or --stop-below (start a new run to change anything else)");

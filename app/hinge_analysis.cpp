@@ -11,7 +11,6 @@
 #include "core/text_format.hpp"
 #include "io/case_echo.hpp"
 #include "io/final_state.hpp"
-#include "io/input_error.hpp"
 #include "solver/nonlinear/equilibrate.hpp"
 #include "solver/path/path_follower.hpp"
 #include "solver/section_assignment.hpp"
@@ -75,15 +74,6 @@ std::vector<HingePoint> hinge_curve_of(const CheckpointData& d) {
   return curve;
 }
 
-/// The imperfect geometry of a checkpoint, onto the model built from the case.
-void restore_geometry(ShellModel& model, const CheckpointData& d) {
-  const std::vector<double>& x = d.array("model.nodes");
-  if (x.size() != 3 * model.nodes.size())
-    throw InputError(d.source, 0, "model.nodes", std::to_string(x.size() / 3) + " nodes",
-                     std::to_string(model.nodes.size()) + " nodes, as the case file builds");
-  for (std::size_t n = 0; n < model.nodes.size(); ++n) model.nodes[n] = Eigen::Vector3d(x.data() + 3 * n);
-}
-
 }  // namespace
 
 int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::path& folder, int threads,
@@ -100,7 +90,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
     const nlohmann::json start = nlohmann::json::parse(resume->text("summary.start"));
     for (const char* key : {"imperfection", "mesh", "residual_stress"})
       if (start.contains(key)) summary[key] = start[key];
-    restore_geometry(model, *resume);
+    restore_geometry(model, *resume);  // the imperfect nodes
   } else {
     // 1. Imperfections on a copy of the perfect model.
     const StageReport imperfection = apply_imperfections(input, hinge, model, threads);
@@ -160,8 +150,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
     recorder_store->add_row(row_of(curve[0], mp, hinge.theta_p_beam));
     recorder_store->write_fields(0, 0.0, model, u_peak, snapshot_results(problem));
     checkpoint.base.texts["summary.start"] = summary.dump();
-    std::vector<double>& nodes = checkpoint.base.arrays["model.nodes"];
-    for (const Eigen::Vector3d& x : model.nodes) nodes.insert(nodes.end(), x.data(), x.data() + 3);
+    put_geometry(checkpoint.base, model);
   }
   RunRecorder& recorder = *recorder_store;
   checkpoint.add_study_state = [&](CheckpointData& d) { put_hinge_state(d, curve, theta0, m_max, peak_step, u_peak); };

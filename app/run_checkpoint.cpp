@@ -71,6 +71,20 @@ void write_start_checkpoint(const RunCheckpoint& run, const ShellProblem& proble
   write_timed(run, problem, nullptr, recorder, "");
 }
 
+void put_geometry(CheckpointData& data, const ShellModel& model) {
+  std::vector<double>& nodes = data.arrays["model.nodes"];
+  nodes.clear();
+  for (const Eigen::Vector3d& x : model.nodes) nodes.insert(nodes.end(), x.data(), x.data() + 3);
+}
+
+void restore_geometry(ShellModel& model, const CheckpointData& data) {
+  const std::vector<double>& x = data.array("model.nodes");
+  if (x.size() != 3 * model.nodes.size())
+    throw InputError(data.source, 0, "model.nodes", std::to_string(x.size() / 3) + " nodes",
+                     std::to_string(model.nodes.size()) + " nodes, as the case file builds");
+  for (std::size_t n = 0; n < model.nodes.size(); ++n) model.nodes[n] = Eigen::Vector3d(x.data() + 3 * n);
+}
+
 RecorderContinuation recorder_continuation(const CheckpointData& data) {
   RecorderContinuation r;
   r.rows = static_cast<std::size_t>(data.integer("recorder.rows"));

@@ -56,6 +56,11 @@ void write_start_checkpoint(const RunCheckpoint& run, const ShellProblem& proble
 void write_run_checkpoint(const RunCheckpoint& run, const ShellProblem& problem, const PathState& path,
                           const RunRecorder& recorder, const std::string& stop_reason);
 
+/// The node coordinates of the analysed (imperfect) model as "model.nodes", and back onto the model
+/// the case builds (InputError when the node counts differ).
+void put_geometry(CheckpointData& data, const ShellModel& model);
+void restore_geometry(ShellModel& model, const CheckpointData& data);
+
 RecorderContinuation recorder_continuation(const CheckpointData& data);
 /// Restores the problem's state and tangent from data (ShellProblem::restore; a state that the
 /// re-evaluation does not reproduce to the bit is logged as a warning with its size) and returns

@@ -51,8 +51,7 @@ int main(int argc, char** argv) {
     return 2;
   }
   ShellModel model = built.hinge->zone.model;
-  const std::vector<double>& x = data.array("model.nodes");
-  for (std::size_t n = 0; n < model.nodes.size(); ++n) model.nodes[n] = Eigen::Vector3d(x.data() + 3 * n);
+  app::restore_geometry(model, data);
   const SectionAssignment sections = SectionAssignment::for_steel(model, built.input.steel, built.input.layers, false);
   ShellProblem problem(model, sections, {});
   if (built.hinge->zone.axial_force > 0.0) {

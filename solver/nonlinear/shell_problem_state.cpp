@@ -84,36 +84,28 @@ double ShellProblem::restore(const ShellProblemState& s, bool reevaluate) {
     u_[n] = Eigen::Vector3d(s.translations.data() + 3 * n);
     R_[n] = Eigen::Matrix3d(s.rotations.data() + 9 * n);
   }
-  if (!reevaluate) {
-    u_committed_ = u_;
-    R_committed_ = R_;
-    read_history(s.history, history_committed_, "history");
-    read_history(s.history_previous, history_previous_, "history_previous");
-    read_modes(s.modes, alpha_committed_, "modes");
-    read_modes(s.modes_previous, alpha_previous_, "modes_previous");
+  double difference = 0.0;
+  if (reevaluate) {
+    // The last corrector evaluation: the configuration of the state, the history before it.
+    read_history(s.history_previous, history_committed_, "history_previous");
+    read_modes(s.modes_previous, alpha_committed_, "modes_previous");
     history_trial_ = history_committed_;
     alpha_trial_ = alpha_committed_;
+    indefinite_ = s.indefinite_before_last_evaluation;
+    Eigen::VectorXd f;
+    if (evaluate(f, true) != EvaluationStatus::Ok)
+      throw std::runtime_error("ShellProblem::restore: the tangent at the restored state failed: " + message_);
+    difference = largest_difference(history_trial_, s.history);
+    commit();  // the previous history becomes history_previous_
+  } else {
+    u_committed_ = u_;
+    R_committed_ = R_;
+    read_history(s.history_previous, history_previous_, "history_previous");
+    read_modes(s.modes_previous, alpha_previous_, "modes_previous");
     indefinite_ = s.indefinite;
     indefinite_before_last_ = s.indefinite_before_last_evaluation;
-    factorisations_ = static_cast<int>(s.statistics[0]);
-    indefinite_factorisations_ = static_cast<int>(s.statistics[1]);
-    factor_seconds_ = s.statistics[2];
-    assembly_seconds_ = s.statistics[3];
-    indefinite_seconds_ = s.statistics[4];
-    return 0.0;
   }
-  // The last corrector evaluation: the configuration of the state, the history before it.
-  read_history(s.history_previous, history_committed_, "history_previous");
-  read_modes(s.modes_previous, alpha_committed_, "modes_previous");
-  history_trial_ = history_committed_;
-  alpha_trial_ = alpha_committed_;
-  indefinite_ = s.indefinite_before_last_evaluation;
-  Eigen::VectorXd f;
-  if (evaluate(f, true) != EvaluationStatus::Ok)
-    throw std::runtime_error("ShellProblem::restore: the tangent at the restored state failed: " + message_);
-  const double difference = largest_difference(history_trial_, s.history);
-  commit();
-  if (difference != 0.0) {  // keep the stored history, the tangent is the re-evaluated one
+  if (!reevaluate || difference != 0.0) {  // the stored history (with the re-evaluated tangent, if any)
     read_history(s.history, history_committed_, "history");
     read_modes(s.modes, alpha_committed_, "modes");
     history_trial_ = history_committed_;
