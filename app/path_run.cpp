@@ -33,6 +33,7 @@ PathRunResult run_path(ShellProblem& problem, const ShellModel& model, RunRecord
   PathRunResult result;
   std::optional<std::string> stop;
   PathFollower follower(problem, *constraint, setup.options);
+  if (setup.controlled) follower.set_curve_monitor(free_dof_weights(*setup.controlled, problem.dofs()));
   auto observer = [&](const ConvergedStep& step) {
     const Eigen::VectorXd u = problem.displacements();
     StepRecord record = on_step(step, u);

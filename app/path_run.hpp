@@ -23,7 +23,8 @@ struct PathRunSetup {
   Control control = Control::arc_length;  ///< load, displacement or arc_length
   PathOptions options;                    ///< with max_load_factor / max_control_value set
   ArcLength::Form arc_length_form = ArcLength::Form::Cylindrical;
-  std::optional<DofCombination> controlled;  ///< control = displacement: the quantity driven
+  /// The quantity driven by control = displacement, and the monitored curve of step_rule = curve.
+  std::optional<DofCombination> controlled;
   /// stop_reason of a path that landed on max_load_factor or max_control_value (empty: "completed").
   std::string landed_reason;
   std::string description;  ///< "tracing the moment-rotation curve", logged with the control

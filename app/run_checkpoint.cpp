@@ -37,6 +37,8 @@ CheckpointData checkpoint_of(const RunCheckpoint& run, const ShellProblem& probl
     put_vector(d, "path.previous_increment", path->previous_increment);
     d.arrays["path.next_size"] = {path->next_size};
     d.arrays["path.first_size"] = {path->first_size};
+    d.arrays["path.previous_load_factor_increment"] = {path->previous_load_factor_increment};
+    d.arrays["path.curve_elastic_value"] = {path->curve_elastic_value};
     d.integers["path.steps"] = path->steps;
     d.integers["path.iterations"] = path->iterations;
     d.integers["path.cutbacks"] = path->cutbacks;
@@ -127,6 +129,8 @@ std::optional<PathState> restore_path_run(ShellProblem& problem, const Checkpoin
   p.previous_increment = vector_of(data, "path.previous_increment");
   p.next_size = data.scalar("path.next_size");
   p.first_size = data.scalar("path.first_size");
+  p.previous_load_factor_increment = data.scalar("path.previous_load_factor_increment");
+  p.curve_elastic_value = data.scalar("path.curve_elastic_value");
   p.steps = static_cast<int>(data.integer("path.steps"));
   p.iterations = static_cast<int>(data.integer("path.iterations"));
   p.cutbacks = static_cast<int>(data.integer("path.cutbacks"));

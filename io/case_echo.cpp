@@ -43,7 +43,7 @@ json member(const HingeZoneSpec& m) {
   return j;
 }
 
-json analysis(const AnalysisInput& a, ModelKind kind) {
+json analysis(const AnalysisInput& a, ModelKind kind, int material_substeps) {
   const PathOptions& p = a.path;
   json j = {{"control", enum_name(a.control)},
             {"force_tolerance", p.force_tolerance},
@@ -53,6 +53,10 @@ json analysis(const AnalysisInput& a, ModelKind kind) {
             {"min_step_ratio", p.min_step_ratio},
             {"max_step_ratio", p.max_step_ratio},
             {"target_iterations", p.target_iterations},
+            {"step_rule", enum_name(p.step_rule)},
+            {"plastic_step", p.curve.plastic_step},
+            {"turning_step", p.curve.turning_step},
+            {"material_substeps", material_substeps},
             {"arc_length_form", enum_name(a.arc_length_form)},
             {"stop_below", a.stop_below},
             {"max_steps", p.max_steps}};
@@ -126,7 +130,7 @@ json to_json(const CaseInput& c) {
     mesh["aspect"] = c.zone.aspect;
   }
   j["mesh"] = mesh;
-  j["analysis"] = analysis(c.analysis, c.kind);
+  j["analysis"] = analysis(c.analysis, c.kind, c.layers.material_substeps);
   j["buckling"] = {{"modes", c.buckling.modes}};
   j["output"] = {{"fields_every", c.output.fields_every}, {"checkpoint_every", c.output.checkpoint_every}};
   return c.kind == ModelKind::general ? general_parts(c, std::move(j)) : j;

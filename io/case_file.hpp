@@ -91,9 +91,18 @@
 //                             arc expressed as a load-factor step)
 //                                                                 0.1 (generated: 0.05)  > 0
 //         min_step_ratio      number: cut-back floor / first_step 1e-4           0 < r <= 1
-//         max_step_ratio      number: largest step / first_step   10 (generated: 1)  >= 1
+//         max_step_ratio      number: largest step / first_step   10 (generated: 20)  >= 1
+//         step_rule           "curve" | "iterations": steps sized by the monitored curve (the hinge
+//                             rotation; general: control_dof, required) or by the iteration count
+//                                                                 "iterations" (generated: "curve")
+//         plastic_step        number: step_rule "curve", plastic rotation per step / its elastic
+//                             value at load factor 1               0.1            0 < p < 1
+//         turning_step        number [degrees]: step_rule "curve", turn of the normalised curve
+//                             per step                             10             0 < a <= 45
 //         target_iterations   integer: step-size adaptation target (grow below it, shrink
 //                             above twice it)                     6              1 <= t <= max_iterations
+//         material_substeps   integer: backward-Euler substeps of a plastic layer update
+//                                                                 4              1 <= n <= 64
 //         arc_length_form     "cylindrical" | "normal_plane"      "cylindrical"
 //         max_rotation        number [rad] (generated only): stop at this hinge rotation
 //                                                                 0.15           0 < x <= 1

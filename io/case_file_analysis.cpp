@@ -16,6 +16,9 @@ void read_path_options(TableReader& r, PathOptions& p) {
   p.min_step_ratio = r.number("min_step_ratio", p.min_step_ratio);
   p.max_step_ratio = r.number("max_step_ratio", p.max_step_ratio);
   p.target_iterations = r.integer("target_iterations", p.target_iterations);
+  p.step_rule = read_choice(r, "step_rule", p.step_rule);
+  p.curve.plastic_step = r.number("plastic_step", p.curve.plastic_step);
+  p.curve.turning_step = r.number("turning_step", p.curve.turning_step);
   p.max_steps = r.integer("max_steps", p.max_steps);
 }
 
@@ -42,6 +45,9 @@ void read_general_stops(TableReader& r, AnalysisInput& a) {
     r.fail("control_dof", "no value",
            std::string("{ group = \"...\", dof = \"ux\" } ") +
                (displacement ? "for control = \"displacement\"" : "to go with max_displacement"));
+  if (a.path.step_rule == StepRule::curve && !a.control_dof)
+    r.fail("step_rule", "\"curve\" without control_dof",
+           "control_dof (the quantity whose load-deflection curve sizes the steps) for step_rule = \"curve\"");
   if ((displacement || a.control_dof) && !a.max_displacement)
     r.fail("max_displacement", "no value",
            std::string("the target value of control_dof [mm or rad] ") +
@@ -60,15 +66,17 @@ void read_analysis(TableReader& r, CaseInput& c) {
   const bool generated = c.kind == ModelKind::generated;
   a.control = read_choice(r, "control", generated ? Control::arc_length : Control::linear);
   if (generated) {
-    // Hinge studies: constant arc-length steps of 0.05 in load-factor measure (the first step is
-    // also the largest; cut-backs halve and regrow to it). With the consistent predictor the
-    // iteration count no longer limits the step, and the moment-rotation curve of a buckling hinge
-    // depends on the step size to first order (bench/results/step_size_study.txt: on the demo,
-    // 0.1 -> 0.05 -> 0.025 moved R by +2.0 % and +1.0 %, theta at M_max by +1.4 % and +1.2 %).
+    // Hinge studies: arc-length steps sized by the moment-rotation curve (step_rule = curve): the
+    // curve of a buckling hinge depends on the step size to first order through each step's
+    // plastic increment (bench/results/step_size_study.txt: on the demo, constant steps
+    // 0.1 -> 0.05 -> 0.025 moved R by +2.0 % and +1.0 %), while elastic steps cost nothing, so
+    // the plastic rotation per step is what is held (bench/results/curve_step_study.txt).
     a.path.first_step = 0.05;
-    a.path.max_step_ratio = 1.0;
+    a.path.max_step_ratio = 20.0;
+    a.path.step_rule = StepRule::curve;
   }
   read_path_options(r, a.path);
+  c.layers.material_substeps = r.integer("material_substeps", c.layers.material_substeps);
   read_stopping(r, a);
   if (generated) {
     a.max_rotation = r.number("max_rotation", a.max_rotation);

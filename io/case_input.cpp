@@ -20,6 +20,7 @@ const std::string kLocalImperfection[] = {"none", "buckling_mode", "half_sine"};
 const std::string kResidualStress[] = {"none", "hot_rolled", "welded"};
 const std::string kControl[] = {"linear", "load", "displacement", "arc_length"};
 const std::string kArcLengthForm[] = {"cylindrical", "normal_plane"};
+const std::string kStepRule[] = {"iterations", "curve"};
 }  // namespace
 
 template <> std::span<const std::string> enum_names<ModelKind>() { return kModelKind; }
@@ -40,5 +41,6 @@ template <> std::span<const std::string> enum_names<LocalImperfection>() { retur
 template <> std::span<const std::string> enum_names<ResidualStressKind>() { return kResidualStress; }
 template <> std::span<const std::string> enum_names<Control>() { return kControl; }
 template <> std::span<const std::string> enum_names<ArcLength::Form>() { return kArcLengthForm; }
+template <> std::span<const std::string> enum_names<StepRule>() { return kStepRule; }
 
 }  // namespace rotcap

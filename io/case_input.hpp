@@ -45,6 +45,7 @@ template <> std::span<const std::string> enum_names<RestrainedFlange>();
 template <> std::span<const std::string> enum_names<LocalImperfection>();
 template <> std::span<const std::string> enum_names<ResidualStressKind>();
 template <> std::span<const std::string> enum_names<Control>();
+template <> std::span<const std::string> enum_names<StepRule>();
 template <> std::span<const std::string> enum_names<ArcLength::Form>();
 template <class Enum>
 const std::string& enum_name(Enum value) {

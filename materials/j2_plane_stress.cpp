@@ -1,5 +1,7 @@
 #include "materials/j2_plane_stress.hpp"
 
+#include <Eigen/LU>
+
 #include <algorithm>
 #include <cmath>
 #include <limits>
@@ -24,12 +26,16 @@ J2PlaneStress::J2PlaneStress(double E, double nu, HardeningCurve curve, const Op
   if (!(options.tolerance > 0.0 && options.tolerance < 1.0e-3))
     throw std::invalid_argument("J2PlaneStress::Options.tolerance = " +
                                 std::to_string(options.tolerance) + " must satisfy 0 < tol < 1e-3");
+  if (options.substeps < 1 || options.substeps > 64)
+    throw std::invalid_argument("J2PlaneStress::Options.substeps = " + std::to_string(options.substeps) +
+                                " must satisfy 1 <= n <= 64");
   if (options.max_iterations < 5 || options.max_iterations > 1000)
     throw std::invalid_argument("J2PlaneStress::Options.max_iterations = " +
                                 std::to_string(options.max_iterations) +
                                 " must satisfy 5 <= n <= 1000");
   C_ << 1.0, nu, 0.0, nu, 1.0, 0.0, 0.0, 0.0, 0.5 * (1.0 - nu);
   C_ *= E / (1.0 - nu * nu);
+  C_inverse_ = C_.inverse();
 }
 
 double J2PlaneStress::von_mises(const Eigen::Vector3d& s) {
@@ -44,7 +50,60 @@ Eigen::Vector3d J2PlaneStress::stress(const Eigen::Vector3d& strain,
 ReturnStatus J2PlaneStress::update(const Eigen::Vector3d& strain, const LayerState& committed,
                                    LayerState& trial, Eigen::Vector3d& stress,
                                    Eigen::Matrix3d* tangent) const {
+  if (options_.substeps > 1) {
+    const Eigen::Vector3d s_tr = this->stress(strain, committed);
+    const double ep_n = committed.equivalent_plastic_strain;
+    if (s_tr.allFinite() && ep_n >= 0.0 && std::isfinite(ep_n)) {
+      const double s_y = curve_.evaluate(ep_n).stress;
+      if (1.5 * s_tr.dot(Eigen::Vector3d(2.0 / 3.0 * s_tr(0) - s_tr(1) / 3.0, 2.0 / 3.0 * s_tr(1) - s_tr(0) / 3.0,
+                                         2.0 * s_tr(2))) > s_y * s_y)
+        return substepped(strain, committed, trial, stress, tangent);
+    }
+  }
+  return return_once(strain, committed, trial, stress, tangent, nullptr);
+}
+
+ReturnStatus J2PlaneStress::substepped(const Eigen::Vector3d& strain, const LayerState& committed,
+                                       LayerState& trial, Eigen::Vector3d& stress,
+                                       Eigen::Matrix3d* tangent) const {
+  // Chain rule over the substeps k = 1..n, eps_k = eps_n + (k/n) (eps - eps_n):
+  //   d s_tr,k = C ((k/n) I - G_{k-1}) d eps,   G = d eps_p / d eps,  g = d a / d eps (a = epbar),
+  //   d s_k = S_t d s_tr,k + S_a g_{k-1} d eps,  G_k = (k/n) I - C^-1 d s_k / d eps,
+  //   g_k = A_t d s_tr,k / d eps + A_a g_{k-1}   (S, A: ReturnJacobians of substep k).
+  const int n = options_.substeps;
+  const Eigen::Vector3d increment = strain - committed.strain;
+  LayerState from = committed;
+  Eigen::Matrix3d G = Eigen::Matrix3d::Zero(), ds = Eigen::Matrix3d::Zero();
+  Eigen::RowVector3d g = Eigen::RowVector3d::Zero();
+  ReturnStatus worst = ReturnStatus::Elastic;
+  ReturnJacobians J;
+  for (int k = 1; k <= n; ++k) {
+    const double f = double(k) / n;
+    const Eigen::Vector3d eps_k = k == n ? strain : Eigen::Vector3d(committed.strain + f * increment);
+    J = ReturnJacobians{};
+    const ReturnStatus s = return_once(eps_k, from, trial, stress, nullptr, tangent ? &J : nullptr);
+    if (s == ReturnStatus::NotConverged) return s;
+    if (s == ReturnStatus::Plastic) worst = s;
+    if (tangent) {
+      const Eigen::Matrix3d T = C_ * (f * Eigen::Matrix3d::Identity() - G);
+      ds = J.ds_dtrial * T + J.ds_da * g;
+      G = f * Eigen::Matrix3d::Identity() - C_inverse_ * ds;
+      g = J.da_dtrial * T + J.da_da * g;
+    }
+    from = trial;
+  }
+  // The chain is not symmetric (each substep starts from a history that depends on eps); the
+  // global solvers need a symmetric tangent, so the symmetric part is returned: Newton then
+  // converges a little slower than quadratically (demo: 177 against 166 iterations).
+  if (tangent) *tangent = 0.5 * (ds + ds.transpose());
+  return worst;
+}
+
+ReturnStatus J2PlaneStress::return_once(const Eigen::Vector3d& strain, const LayerState& committed,
+                                        LayerState& trial, Eigen::Vector3d& stress,
+                                        Eigen::Matrix3d* tangent, ReturnJacobians* jacobians) const {
   trial = committed;
+  trial.strain = strain;
   const Eigen::Vector3d s_tr = this->stress(strain, committed);
   stress = s_tr;
   if (tangent) *tangent = C_;
@@ -126,7 +185,7 @@ ReturnStatus J2PlaneStress::update(const Eigen::Vector3d& strain, const LayerSta
   trial.dissipation = committed.dissipation + dg * phi2;
   if (!converged || !stress.allFinite()) return ReturnStatus::NotConverged;
 
-  if (tangent) {
+  auto return_tangent = [&](Eigen::Matrix3d& out) {
     // Xi = (C^-1 + dgamma P)^-1, diagonal in the eigenbasis v1 = [1,1,0]/sqrt2,
     // v2 = [1,-1,0]/sqrt2, v3 = [0,0,1] with eigenvalues c_i / (1 + dgamma c_i p_i).
     const double x1 = E_ / (1.0 - nu_) / d1;
@@ -141,7 +200,31 @@ ReturnStatus J2PlaneStress::update(const Eigen::Vector3d& strain, const LayerSta
     const double H = curve_.evaluate(trial.equivalent_plastic_strain).slope;
     const Eigen::Vector3d n = Xi * Ps;
     const double beta = 2.0 / 3.0 * H * phi2 / (1.0 - 2.0 / 3.0 * H * dg);
-    *tangent = Xi - (n * n.transpose()) / (Ps.dot(n) + beta);
+    out = Xi - (n * n.transpose()) / (Ps.dot(n) + beta);
+  };
+  if (tangent) return_tangent(*tangent);
+  if (jacobians) {
+    // At the converged dgamma (e): F(dgamma; s_tr, a_n) = 1/2 phi^2 - 1/3 sigma_y(ep)^2 with
+    // ep = a_n + sqrt(2/3) dgamma phi, so dF/da_n = -2/3 sigma_y H and, at fixed dgamma,
+    // dphi^2/ds_tr = (sum/3) [1,1,0] / d1^2 + [diff, -diff, 4 s12] / d2^2.
+    const double sy = e.y.stress, H = e.y.slope, phi = std::sqrt(e.phi2);
+    const Eigen::RowVector3d dphi2_ds = (sum / 3.0 / (d1 * d1)) * Eigen::RowVector3d(1.0, 1.0, 0.0) +
+                                        Eigen::RowVector3d(diff, -diff, 4.0 * s_tr(2)) / (d2 * d2);
+    const Eigen::RowVector3d dphi_ds = dphi2_ds / (2.0 * phi);
+    const double dep_ddg = kSqrt2of3 * (phi + dg * 0.5 * (-2.0 * (A * a / (d1 * d1 * d1) + B * g2 / (d2 * d2 * d2))) / phi);
+    const Eigen::RowVector3d dF_ds = 0.5 * dphi2_ds - 2.0 / 3.0 * sy * H * kSqrt2of3 * dg * dphi_ds;
+    const double ddg_da = 2.0 / 3.0 * sy * H / e.dF;
+    const Eigen::RowVector3d ddg_ds = -dF_ds / e.dF;
+    // d s / d dgamma at fixed s_tr, mode by mode.
+    const double dsum = -a * sum / (d1 * d1), ddiff = -g2 * diff / (d2 * d2);
+    const Eigen::Vector3d ds_ddg(0.5 * (dsum + ddiff), 0.5 * (dsum - ddiff), -g2 * s_tr(2) / (d2 * d2));
+    // d s / d s_tr = C_alg C^-1 (C_alg the consistent tangent at fixed history).
+    Eigen::Matrix3d Calg;
+    return_tangent(Calg);
+    jacobians->ds_dtrial = Calg * C_inverse_;
+    jacobians->ds_da = ds_ddg * ddg_da;
+    jacobians->da_dtrial = kSqrt2of3 * dg * dphi_ds + dep_ddg * ddg_ds;
+    jacobians->da_da = 1.0 + dep_ddg * ddg_da;
   }
   return ReturnStatus::Plastic;
 }

@@ -12,6 +12,9 @@ namespace rotcap {
 void LayeredShellSection::Options::validate() const {
   if (layers < 3 || layers > 15 || layers % 2 == 0)
     throw OptionError("mesh.layers", std::to_string(layers), "an odd number of layers, 3 <= layers <= 15");
+  if (material_substeps < 1 || material_substeps > 64)
+    throw OptionError("analysis.material_substeps", std::to_string(material_substeps),
+                      "an integer 1 <= material_substeps <= 64 (backward-Euler substeps of a plastic layer update)");
 }
 
 LayeredShellSection::LayeredShellSection(J2PlaneStress material, double t, const Options& options)

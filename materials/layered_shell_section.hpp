@@ -44,7 +44,10 @@ class LayeredShellSection final : public ShellSection {
  public:
   struct Options {
     int layers = 5;  ///< integration points through the thickness, odd, 3 <= n <= 15
-    /// Throws OptionError("mesh.layers", ...) for a count outside the rule above.
+    /// Backward-Euler substeps of a plastic layer update (J2PlaneStress::Options::substeps),
+    /// 1 <= n <= 64; the case-file key analysis.material_substeps.
+    int material_substeps = J2PlaneStress::Options{}.substeps;
+    /// Throws OptionError("mesh.layers" or "analysis.material_substeps", ...) outside the rules above.
     void validate() const;
   };
 

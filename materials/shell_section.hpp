@@ -31,6 +31,7 @@ struct LayerState {
   double equivalent_plastic_strain = 0.0;                      ///< accumulated, [-]
   Eigen::Vector3d initial_stress = Eigen::Vector3d::Zero();   ///< residual stress [MPa], added to the elastic stress
   double dissipation = 0.0;                                    ///< plastic work per unit volume [N mm / mm^3]
+  Eigen::Vector3d strain = Eigen::Vector3d::Zero();            ///< total strain of the state [-] (start of a substep path)
 };
 
 /// Stresses at the bottom (z = -t/2), middle and top (z = +t/2) surfaces, for output only.

@@ -29,6 +29,10 @@ void PathOptions::validate() const {
     bad("target_iterations", target_iterations,
         "in [1, max_iterations] (max_iterations = " + std::to_string(max_iterations) + ")");
   if (max_steps < 1) bad("max_steps", max_steps, ">= 1");
+  if (!(curve.plastic_step > 0.0 && curve.plastic_step < 1.0))
+    bad("plastic_step", curve.plastic_step, "in (0, 1) (plastic rotation per step / elastic rotation at load factor 1)");
+  if (!(curve.turning_step > 0.0 && curve.turning_step <= 45.0))
+    bad("turning_step", curve.turning_step, "in (0, 45] degrees");
 }
 
 const char* to_string(PathStatus status) {
@@ -118,6 +122,30 @@ PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constrain
   return Attempt::Diverged;
 }
 
+void PathFollower::start_curve_rule(double elastic_value) {
+  curve_rule_.reset();
+  state_.curve_elastic_value = 0.0;
+  if (options_.step_rule != StepRule::curve || curve_weights_.size() != problem_.size()) return;
+  if (!std::isfinite(elastic_value) || elastic_value == 0.0) return;
+  curve_rule_.emplace(curve_weights_, elastic_value, options_.curve);
+  state_.curve_elastic_value = elastic_value;
+}
+
+double PathFollower::curve_next_size(const ConvergedStep& record, const Eigen::VectorXd& previous_increment,
+                                     double size) const {
+  const CurveChord now = curve_rule_->chord(Du_, record.load_factor_increment);
+  CurveChord before;
+  if (previous_increment.size() == Du_.size())
+    before = curve_rule_->chord(previous_increment, state_.previous_load_factor_increment);
+  double factor = curve_rule_->size_factor(now, before);
+  // Safety of the iteration rule: a step that needed more than twice the target iterations shrinks.
+  const int target = options_.target_iterations;
+  if (record.iterations > 2 * target)
+    factor = std::min(factor, std::max(0.5, std::sqrt(double(target) / record.iterations)));
+  return std::clamp(size * factor, options_.min_step_ratio * state_.first_size,
+                    options_.max_step_ratio * state_.first_size);
+}
+
 double PathFollower::next_size(int iterations, double size) const {
   const int target = options_.target_iterations;
   double factor = 1.0;
@@ -138,6 +166,7 @@ PathSummary PathFollower::run(const Observer& observer, double lambda0) {
   state_ = PathState{};
   state_.first_size = options_.first_step * constraint_.measure_of(du_f_);
   state_.next_size = state_.first_size;
+  start_curve_rule(curve_weights_.size() == du_f_.size() ? curve_weights_.dot(du_f_) : 0.0);
   return follow(observer, summary);
 }
 
@@ -150,6 +179,7 @@ PathSummary PathFollower::resume(const Observer& observer, const PathState& from
     return summary;
   }
   state_ = from;
+  start_curve_rule(from.curve_elastic_value);
   lambda_ = from.load_factor;
   u_total_ = from.total_increment;
   Du_prev_ = from.previous_increment;
@@ -188,12 +218,19 @@ PathSummary PathFollower::follow(const Observer& observer, PathSummary summary) 
       const Eigen::VectorXd& w = problem_.arc_length_weights();
       if ((Du_.array() * w.array() * Du_prev_.array()).sum() < 0.0) result = Attempt::Diverged;
     }
+    // A converged step that went too far along the plastic part of the monitored curve is redone
+    // smaller (step_rule = curve), unless it is already at the floor.
+    double retry_factor = 0.5;
+    if (result == Attempt::Converged && curve_rule_ && !lands &&
+        curve_rule_->too_large(curve_rule_->chord(Du_, record.load_factor_increment), retry_factor) &&
+        size * retry_factor >= floor)
+      result = Attempt::Diverged;
     if (result != Attempt::Converged) {
-      // --- cut back: halve and retry from the committed state
+      // --- cut back: halve (or resize) and retry from the committed state
       problem_.revert();
       ++cutbacks;
       ++summary.cutbacks;
-      size *= 0.5;
+      size *= retry_factor;
       if (size < floor) {
         summary.status = PathStatus::StepTooSmall;
         summary.message = format_text(
@@ -209,6 +246,8 @@ PathSummary PathFollower::follow(const Observer& observer, PathSummary summary) 
     problem_.commit();
     lambda_ += record.load_factor_increment;
     u_total_ += Du_;
+    // --- adapt the step size (before the observer, so that state() is whole)
+    size = curve_rule_ ? curve_next_size(record, Du_prev_, size) : next_size(record.iterations, size);
     Du_prev_ = Du_;
     record.load_factor = lambda_;
     record.cutbacks = cutbacks;
@@ -222,9 +261,8 @@ PathSummary PathFollower::follow(const Observer& observer, PathSummary summary) 
     // that sits on its yield surface (a trial stress exactly on the surface is elastic), which hid
     // the negative pivots past a peak and cost one assembly and factorisation per step.
     record.negative_pivots = problem_.negative_pivots();
-    // --- adapt the step size to the iteration count (before the observer, so that state() is whole)
-    size = next_size(record.iterations, size);
     state_.load_factor = lambda_;
+    state_.previous_load_factor_increment = record.load_factor_increment;
     state_.total_increment = u_total_;
     state_.previous_increment = Du_prev_;
     state_.next_size = size;

@@ -3,8 +3,10 @@
 // StepConstraint deciding the load factor (load, displacement or arc-length control).
 //
 // Each step: predict (tangent at the committed state, dlambda from the constraint), correct (Newton
-// with the full tangent, two solves per iteration), and on convergence commit and adapt the step size
-// to the iteration count I against target_iterations T: x2 for I <= T/2, x1.25 for I <= T, kept for
+// with the full tangent, two solves per iteration), and on convergence commit and adapt the step size,
+// either (step_rule = curve, with a monitored quantity set) to the shape of the monitored curve
+// (CurveStepRule, solver/path/curve_step_rule.hpp), or (step_rule = iterations) to the iteration
+// count I against target_iterations T: x2 for I <= T/2, x1.25 for I <= T, kept for
 // T < I <= 2T, x sqrt(T/I) (at least 1/2) above (the square-root rule of Crisfield 1991, vol. 1,
 // section 9.5, with a dead band: plastic steps often need a few iterations more while yield zones
 // spread, and shrinking on every such step lets the size decay for good); on divergence revert and
@@ -14,15 +16,20 @@
 // Convergence needs BOTH  |r| <= force_tolerance * |f_ref|  and  |du|_W <= displacement_tolerance * |Du|_W
 // (du the last correction, Du the step increment, W the arc-length weights = translations).
 
+#include "solver/path/curve_step_rule.hpp"
 #include "solver/path/equilibrium_problem.hpp"
 #include "solver/path/step_constraint.hpp"
 
 #include <functional>
 #include <limits>
+#include <optional>
 #include <string>
 #include <vector>
 
 namespace rotcap {
+
+/// How a converged step sets the next step's size (see the header comment).
+enum class StepRule { iterations, curve };
 
 struct PathOptions {
   double force_tolerance = 1.0e-6;          ///< > 0, relative to |f_ref|
@@ -32,6 +39,8 @@ struct PathOptions {
   double min_step_ratio = 1.0e-4;           ///< in (0, 1]: cut-back floor relative to the first step
   double max_step_ratio = 10.0;             ///< >= 1: largest step relative to the first step
   int target_iterations = 6;                ///< >= 1
+  StepRule step_rule = StepRule::iterations;
+  CurveStepOptions curve;                   ///< step_rule = curve: the targets (plastic_step, turning_step)
   int max_steps = 500;                      ///< >= 1 converged steps
   double max_load_factor = std::numeric_limits<double>::infinity();   ///< landed on exactly
   double max_control_value = std::numeric_limits<double>::quiet_NaN();///< displacement control: landed on
@@ -77,6 +86,8 @@ struct PathState {
   double next_size = 0.0;              ///< the size the next step tries, in the constraint's measure
   double first_size = 0.0;             ///< the first step's size (floor and ceiling are relative to it)
   int steps = 0, iterations = 0, cutbacks = 0;
+  double previous_load_factor_increment = 0.0;  ///< of the last converged step
+  double curve_elastic_value = 0.0;  ///< step_rule = curve: q_el of the monitored quantity (0: no rule)
 };
 
 class PathFollower {
@@ -85,6 +96,9 @@ class PathFollower {
   using Observer = std::function<bool(const ConvergedStep&)>;
 
   PathFollower(EquilibriumProblem& problem, const StepConstraint& constraint, PathOptions options);
+  /// The monitored quantity q = weights . u of step_rule = curve (over the free DOFs); without it
+  /// that rule falls back to the iteration count.
+  void set_curve_monitor(Eigen::VectorXd weights) { curve_weights_ = std::move(weights); }
   /// Starts from the committed state of the problem at load factor lambda0.
   PathSummary run(const Observer& observer, double lambda0 = 0.0);
   /// Continues a path from `from` (a state() taken in an observer of an earlier run). The problem
@@ -102,6 +116,8 @@ class PathFollower {
   bool converged(double r_norm, double du_norm, double Du_norm) const;
   PathSummary follow(const Observer& observer, PathSummary summary);
   double next_size(int iterations, double size) const;
+  double curve_next_size(const ConvergedStep& record, const Eigen::VectorXd& previous_increment, double size) const;
+  void start_curve_rule(double elastic_value);
 
   EquilibriumProblem& problem_;
   const StepConstraint& constraint_;
@@ -109,6 +125,8 @@ class PathFollower {
   double lambda_ = 0.0;
   double ref_norm_ = 1.0;
   PathState state_;
+  Eigen::VectorXd curve_weights_;
+  std::optional<CurveStepRule> curve_rule_;
   // Work vectors, sized once.
   Eigen::VectorXd f_int_, r_, du_r_, du_f_, du_, Du_, Du_prev_, u_total_;
 };

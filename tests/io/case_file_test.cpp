@@ -90,10 +90,14 @@ TEST(CaseFile, FillsTheDocumentedDefaultsOfAMinimalGeneratedCase) {
   EXPECT_EQ(a.path.force_tolerance, 1e-6);
   EXPECT_EQ(a.path.displacement_tolerance, 1e-4);
   EXPECT_EQ(a.path.max_iterations, 20);
-  EXPECT_EQ(a.path.first_step, 0.05);     // generated models: constant steps (io/case_file.hpp)
+  EXPECT_EQ(a.path.first_step, 0.05);     // generated models: steps from the curve (io/case_file.hpp)
   EXPECT_EQ(a.path.min_step_ratio, 1e-4);
   EXPECT_EQ(a.path.target_iterations, 6);
-  EXPECT_EQ(a.path.max_step_ratio, 1.0);
+  EXPECT_EQ(a.path.max_step_ratio, 20.0);
+  EXPECT_EQ(a.path.step_rule, StepRule::curve);
+  EXPECT_EQ(a.path.curve.plastic_step, 0.1);
+  EXPECT_EQ(a.path.curve.turning_step, 10.0);
+  EXPECT_EQ(c.layers.material_substeps, 4);
   EXPECT_EQ(a.arc_length_form, ArcLength::Form::Cylindrical);
   EXPECT_FALSE(a.max_load_factor.has_value());
   EXPECT_EQ(c.buckling.modes, 4);

@@ -264,6 +264,19 @@ TEST(InputErrors, OtherCaseFileRulesNameTheirKeys) {
 namespace rotcap {
 namespace {
 // A misspelt REQUIRED key must be named as the unknown key it is, not reported as missing.
+TEST(InputErrors, StepRuleKeysNameTheirRules) {
+  expect_input_error([] { generated(replaced(kGenerated, "max_steps = 100", "plastic_step = 0")); },
+                     {"beam.toml:15: analysis.plastic_step: found 0", "in (0, 1)"});
+  expect_input_error([] { generated(replaced(kGenerated, "max_steps = 100", "turning_step = 90")); },
+                     {"beam.toml:15: analysis.turning_step: found 90", "in (0, 45] degrees"});
+  expect_input_error([] { generated(replaced(kGenerated, "max_steps = 100", "step_rule = \"curvy\"")); },
+                     {"beam.toml:15: analysis.step_rule", "curvy", "curve"});
+  expect_input_error([] { generated(replaced(kGenerated, "max_steps = 100", "material_substeps = 0")); },
+                     {"beam.toml:15: analysis.material_substeps: found 0", "1 <= material_substeps <= 64"});
+  expect_input_error([] { general(general_text() + "[analysis]\ncontrol = \"arc_length\"\nstep_rule = \"curve\"\n"); },
+                     {"analysis.step_rule", "control_dof"});
+}
+
 TEST(InputErrors, MisspeltRequiredKeyIsNamedNotReportedMissing) {
   const std::string text =
       "[section]\ndepth = 300.0\nflange_width = 150.0\nflange_thickness = 10.7\nweb_thickness = 7.1\n"

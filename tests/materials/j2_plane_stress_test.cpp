@@ -27,8 +27,17 @@ SteelModel s355(SteelCurveKind kind) {
   return s;
 }
 
-J2PlaneStress material(SteelCurveKind kind) {
-  return J2PlaneStress(kE, kNu, hardening_curve(s355(kind)));
+J2PlaneStress material(SteelCurveKind kind, int substeps = J2PlaneStress::Options{}.substeps) {
+  J2PlaneStress::Options o;
+  o.substeps = substeps;
+  return J2PlaneStress(kE, kNu, hardening_curve(s355(kind)), o);
+}
+
+/// One backward-Euler step per update (the Simo-Taylor return alone).
+J2PlaneStress::Options single_step() {
+  J2PlaneStress::Options o;
+  o.substeps = 1;
+  return o;
 }
 
 // Uniaxial stress sigma_xx under strain eps_xx: g_xy = 0 keeps sigma_xy = 0 by symmetry, and
@@ -168,7 +177,9 @@ TEST(J2PlaneStress, YieldsInPureShearAtFyOverRootThree) {
 }
 
 TEST(J2PlaneStress, YieldsInUniaxialTensionAtFy) {
-  const J2PlaneStress m(kE, kNu, HardeningCurve::perfectly_plastic(kFy));
+  // One step: the strain path of a substepped update from the virgin state is not uniaxial at its
+  // intermediate points (eps_yy is only found at the end), so its epbar differs by design.
+  const J2PlaneStress m(kE, kNu, HardeningCurve::perfectly_plastic(kFy), single_step());
   LayerState virgin;
   EXPECT_EQ(uniaxial(m, 0.999 * kFy / kE, virgin, 0.0).status, ReturnStatus::Elastic);
   const Uniaxial u = uniaxial(m, 3.0 * kFy / kE, virgin, 0.0);
@@ -232,7 +243,8 @@ TEST(J2PlaneStress, UnloadsElasticallyFromPlasticState) {
   EXPECT_LE((D - m.elastic_matrix()).norm(), 1e-12 * m.elastic_matrix().norm());
 }
 
-TEST(J2PlaneStress, ConsistentTangentMatchesCentralDifferences) {
+// Central differences of the update about random plastic states (the test below).
+void expect_tangent_matches_central_differences(int substeps) {
   // Central differences with step h = 1e-7 on strains of order 1e-2: truncation error
   // ~ h^2/6 |sigma'''| with |sigma'''| ~ |C| / eps_c^2 (eps_c ~ 1e-3, the strain scale over
   // which the return map bends) is ~ 4e-4 MPa; round-off ~ eps_mach |sigma| / h ~ 1.5e-6 MPa.
@@ -242,12 +254,13 @@ TEST(J2PlaneStress, ConsistentTangentMatchesCentralDifferences) {
   // States are chosen so that epbar stays inside one segment of the piecewise-linear curve for
   // all perturbed strains (checked), i.e. away from the kinks where the tangent jumps.
   const double h = 1e-7;
+  double asymmetry = 0.0;  // largest |fd - fd^T| / tol
   std::mt19937 rng(7);
   std::uniform_real_distribution<double> u(-1.0, 1.0);
   int checked = 0;
   for (SteelCurveKind kind : {SteelCurveKind::elastic_plastic, SteelCurveKind::bilinear,
                               SteelCurveKind::quadlinear}) {
-    const J2PlaneStress m = material(kind);
+    const J2PlaneStress m = material(kind, substeps);
     const double tol = 1e-6 * m.elastic_matrix().cwiseAbs().maxCoeff();
     for (int n = 0; n < 20; ++n) {
       LayerState committed, trial;
@@ -274,21 +287,61 @@ TEST(J2PlaneStress, ConsistentTangentMatchesCentralDifferences) {
       }
       if (!same_segment) continue;
       ++checked;
-      EXPECT_LE((fd - D).cwiseAbs().maxCoeff(), tol)
+      // One step: the consistent tangent is symmetric (associative flow). Substeps: the exact
+      // derivative of the chain is not, and update() returns its symmetric part.
+      const Eigen::Matrix3d expected = substeps == 1 ? fd : Eigen::Matrix3d(0.5 * (fd + fd.transpose()));
+      EXPECT_LE((expected - D).cwiseAbs().maxCoeff(), tol)
           << steel_curve_kind_name(kind) << " state " << n << "\nD=\n" << D << "\nfd=\n" << fd;
-      EXPECT_LE((D - D.transpose()).cwiseAbs().maxCoeff(), 1e-9 * tol);  // associative: symmetric
+      EXPECT_LE((D - D.transpose()).cwiseAbs().maxCoeff(), 1e-9 * tol);
+      if (substeps > 1) asymmetry = std::max(asymmetry, (fd - fd.transpose()).cwiseAbs().maxCoeff() / tol);
     }
   }
-  std::printf("tangent: %d plastic states checked against central differences\n", checked);
+  std::printf("tangent (%d substeps): %d plastic states checked against central differences\n", substeps, checked);
   EXPECT_GE(checked, 30);
+  // The substep chain must really be tested: its derivative is unsymmetric at these large steps.
+  if (substeps > 1) EXPECT_GT(asymmetry, 10.0);
+}
+
+TEST(J2PlaneStress, ConsistentTangentMatchesCentralDifferences) { expect_tangent_matches_central_differences(1); }
+
+TEST(J2PlaneStress, SubstepChainTangentIsTheSymmetricPartOfCentralDifferences) {
+  expect_tangent_matches_central_differences(4);
+}
+
+TEST(J2PlaneStress, SubstepsConvergeAtFirstOrderOnANonProportionalIncrement) {
+  // From a state yielded in uniaxial tension, one increment turns the strain towards shear (the
+  // kind of increment a buckling plate's layers see). Backward Euler is first-order accurate on
+  // such a path (Simo & Hughes 1998, section 3.3), so the error of n substeps against n = 256
+  // halves with each doubling of n.
+  const Eigen::Vector3d start(2.0 * kFy / kE, -0.9 * kFy / kE, 0.0);
+  const Eigen::Vector3d end = start + Eigen::Vector3d(0.0, 0.0, 4.0 * kFy / kE);
+  auto run = [&](int substeps) {
+    const J2PlaneStress m = material(SteelCurveKind::bilinear, substeps);
+    LayerState committed, trial;
+    Eigen::Vector3d s;
+    m.update(start, LayerState{}, committed, s, nullptr);
+    EXPECT_EQ(m.update(end, committed, trial, s, nullptr), ReturnStatus::Plastic);
+    return s;
+  };
+  const Eigen::Vector3d exact = run(64);
+  double error[4];
+  for (int i = 0; i < 4; ++i) error[i] = (run(1 << i) - exact).norm();  // n = 1, 2, 4, 8
+  std::printf("substep stress errors against n = 64 [MPa]: n=1 %.3g, 2 %.3g, 4 %.3g, 8 %.3g\n", error[0], error[1],
+              error[2], error[3]);
+  EXPECT_GT(error[0], 1.0);  // one step is far off on this path
+  for (int i = 1; i < 4; ++i) {
+    EXPECT_GT(error[i - 1] / error[i], 1.6) << "n = " << (1 << i);
+    EXPECT_LT(error[i - 1] / error[i], 2.6) << "n = " << (1 << i);
+  }
 }
 
 TEST(J2PlaneStress, DissipationIsNonNegativeAndBalancesWork) {
   // Random (seeded) strain path, 400 steps. Each step's plastic work sigma : d eps_p >= 0, and
   // backward Euler satisfies exactly (algebra, with sigma = C (eps - eps_p)):
   //   sum sigma_{n+1} . d eps = Psi_N - Psi_0 + D_N + sum 1/2 d sigma . C^-1 d sigma,
-  // Psi = 1/2 sigma . C^-1 sigma the stored elastic energy; checked to round-off.
-  const J2PlaneStress m = material(SteelCurveKind::quadlinear);
+  // Psi = 1/2 sigma . C^-1 sigma the stored elastic energy; checked to round-off. (Per
+  // backward-Euler step, so with one step per update.)
+  const J2PlaneStress m = material(SteelCurveKind::quadlinear, 1);
   const Eigen::Matrix3d Cinv = m.elastic_matrix().inverse();
   std::mt19937 rng(12345);
   std::normal_distribution<double> n01(0.0, 1.0);

@@ -112,13 +112,17 @@ inline HardeningCurve linear_hardening(double fy, double H) {
   return HardeningCurve({{0.0, fy}, {1.0, fy + H}});
 }
 
-/// One layered section for every element of the model (all elements have the thickness t).
+/// One layered section for every element of the model (all elements have the thickness t);
+/// `substeps`: backward-Euler substeps of a plastic layer update (the program's default, or 1).
 inline SectionAssignment layered_sections(const ShellModel& m, double E, double nu,
-                                          const HardeningCurve& curve, double t, int layers) {
+                                          const HardeningCurve& curve, double t, int layers,
+                                          int substeps = J2PlaneStress::Options{}.substeps) {
   SectionAssignment a;
   LayeredShellSection::Options o;
   o.layers = layers;
-  const int s = a.add_section(std::make_unique<LayeredShellSection>(J2PlaneStress(E, nu, curve), t, o));
+  J2PlaneStress::Options point;
+  point.substeps = substeps;
+  const int s = a.add_section(std::make_unique<LayeredShellSection>(J2PlaneStress(E, nu, curve, point), t, o));
   for (int e = 0; e < m.element_count(); ++e) a.assign(e, s);
   return a;
 }
