@@ -18,12 +18,13 @@ scales=("$@")
 [ ${#scales[@]} -gt 0 ] || scales=(0.5 0.75 1 1.5 2 2.5 3)
 threads="${SCALING_THREADS:-1}"
 load_factor="${SCALING_LOAD_FACTOR:-0.9}"
+cores="$(nproc --all)"
 export OPENBLAS_NUM_THREADS=1 OMP_NUM_THREADS="$threads"
 mkdir -p bench/results
 out=bench/results/scaling.jsonl
 : > "$out"
 cpu="$(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2- | sed 's/^ *//' || true)"
-header=("# scaling: $(date -u '+%Y-%m-%d %H:%M UTC'), commit $(git rev-parse --short HEAD 2>/dev/null || echo none), nproc $(nproc), CPU ${cpu:-unknown}"
+header=("# scaling: $(date -u '+%Y-%m-%d %H:%M UTC'), commit $(git rev-parse --short HEAD 2>/dev/null || echo none), nproc ${cores}, CPU ${cpu:-unknown}"
         "# load average before the run: $(cut -d' ' -f1-3 /proc/loadavg) (shared machine: other builds and runs slow every figure)"
         "# case $case_file, --mesh-scale ${scales[*]}; one process per size; assembly with $threads OpenMP thread(s), one BLAS thread"
         "# state: residual stresses equilibrated, then load control to load factor $load_factor (M = $load_factor Mp), no imperfection"

@@ -54,20 +54,35 @@ def table(rows, header):
     for key, name, _ in PARTS + MEMORY:
         p = fit_exponent(ns, [r[key] for r in rows])
         verdict = "" if p is None else ("  <= 1.5: yes" if p <= 1.5 else "  <= 1.5: NO")
-        out.append(f"  {name:28s} p = {'-' if p is None else f'{p:.2f}'}{verdict}")
+        line = f"  {name:28s} p = {'-' if p is None else f'{p:.2f}'}{verdict}"
+        if key in rows[0].get("min", {}):
+            pm = fit_exponent(ns, [r["min"][key] for r in rows])
+            line += f"   (on the smallest of the repeats: p = {'-' if pm is None else f'{pm:.2f}'})"
+        out.append(line)
     return "\n".join(out) + "\n"
 
 
-def nice_decades(lo, hi):
-    return list(range(math.floor(math.log10(lo)), math.ceil(math.log10(hi)) + 1))
+def tick_text(v):
+    """1, 2, 5 x 10^d as short text: 500, 20k, 1M, 0.2."""
+    for div, suffix in ((1e6, "M"), (1e3, "k")):
+        if v >= div:
+            return f"{v / div:g}{suffix}"
+    return f"{v:g}"
+
+
+def log_range(values):
+    """log10 limits a little wider than the data (5 % of the span, at least 0.05 decades)."""
+    lo, hi = math.log10(min(values)), math.log10(max(values))
+    pad = max(0.05 * (hi - lo), 0.05)
+    return lo - pad, hi + pad
 
 
 def panel(x0, y0, w, h, series, guides, y_label, title):
-    """One log-log panel as SVG elements; series: (name, colour, xs, ys, dash)."""
+    """One log-log panel as SVG elements, legend below it; series: (name, colour, xs, ys, dash)."""
     xs_all = [x for s in series for x in s[2]]
-    ys_all = [y for s in series for y in s[3] if y and y > 0] + [y for g in guides for y in g[3]]
-    dx, dy = nice_decades(min(xs_all), max(xs_all)), nice_decades(min(ys_all), max(ys_all))
-    lx0, lx1, ly0, ly1 = dx[0], dx[-1], dy[0], dy[-1]
+    ys_all = [y for s in series + guides for y in s[3] if y and y > 0]
+    lx0, lx1 = log_range(xs_all)
+    ly0, ly1 = log_range(ys_all)
 
     def px(x):
         return x0 + w * (math.log10(x) - lx0) / (lx1 - lx0)
@@ -75,26 +90,25 @@ def panel(x0, y0, w, h, series, guides, y_label, title):
     def py(y):
         return y0 + h - h * (math.log10(y) - ly0) / (ly1 - ly0)
 
+    def ticks(l0, l1):
+        for d in range(math.floor(l0), math.ceil(l1) + 1):
+            for m in range(1, 10):
+                v = m * 10.0 ** d
+                if l0 <= math.log10(v) <= l1:
+                    yield v, m in (1, 2, 5)
+
     e = [f'<rect x="{x0}" y="{y0}" width="{w}" height="{h}" fill="none" stroke="#333"/>',
          f'<text x="{x0 + w / 2}" y="{y0 - 10}" text-anchor="middle" font-size="14">{title}</text>']
-    for d in range(lx0, lx1 + 1):
-        for m in range(1, 10):
-            v = m * 10.0 ** d
-            if d == lx1 and m > 1:
-                break
-            X = px(v)
-            e.append(f'<line x1="{X:.1f}" y1="{y0}" x2="{X:.1f}" y2="{y0 + h}" stroke="#ddd"/>')
-            if m in (1, 2, 5):
-                e.append(f'<text x="{X:.1f}" y="{y0 + h + 16}" text-anchor="middle" font-size="11">{v:g}</text>')
-    for d in range(ly0, ly1 + 1):
-        for m in range(1, 10):
-            v = m * 10.0 ** d
-            if d == ly1 and m > 1:
-                break
-            Y = py(v)
-            e.append(f'<line x1="{x0}" y1="{Y:.1f}" x2="{x0 + w}" y2="{Y:.1f}" stroke="#ddd"/>')
-            if m in (1, 2, 5):
-                e.append(f'<text x="{x0 - 5}" y="{Y + 4:.1f}" text-anchor="end" font-size="11">{v:g}</text>')
+    for v, major in ticks(lx0, lx1):
+        X = px(v)
+        e.append(f'<line x1="{X:.1f}" y1="{y0}" x2="{X:.1f}" y2="{y0 + h}" stroke="{"#ccc" if major else "#eee"}"/>')
+        if major:
+            e.append(f'<text x="{X:.1f}" y="{y0 + h + 16}" text-anchor="middle" font-size="11">{tick_text(v)}</text>')
+    for v, major in ticks(ly0, ly1):
+        Y = py(v)
+        e.append(f'<line x1="{x0}" y1="{Y:.1f}" x2="{x0 + w}" y2="{Y:.1f}" stroke="{"#ccc" if major else "#eee"}"/>')
+        if major:
+            e.append(f'<text x="{x0 - 5}" y="{Y + 4:.1f}" text-anchor="end" font-size="11">{tick_text(v)}</text>')
     e.append(f'<text x="{x0 + w / 2}" y="{y0 + h + 36}" text-anchor="middle" font-size="12">free DOFs N</text>')
     e.append(f'<text x="{x0 - 48}" y="{y0 + h / 2}" text-anchor="middle" font-size="12" '
              f'transform="rotate(-90 {x0 - 48} {y0 + h / 2})">{y_label}</text>')
@@ -107,11 +121,12 @@ def panel(x0, y0, w, h, series, guides, y_label, title):
         if not dash:
             e += [f'<circle cx="{a:.1f}" cy="{b:.1f}" r="3" fill="{colour}"/>' for a, b in pts]
         legend.append((name, colour, dash))
-    for i, (name, colour, dash) in enumerate(legend):
-        Y = y0 + 14 + 16 * i
+    for i, (name, colour, dash) in enumerate(legend):  # two columns below the axis label
+        X = x0 + (i % 2) * (w / 2)
+        Y = y0 + h + 58 + 16 * (i // 2)
         style = ' stroke-dasharray="6 4"' if dash else ""
-        e.append(f'<line x1="{x0 + 10}" y1="{Y - 4}" x2="{x0 + 34}" y2="{Y - 4}" stroke="{colour}" stroke-width="2"{style}/>')
-        e.append(f'<text x="{x0 + 40}" y="{Y}" font-size="11">{name}</text>')
+        e.append(f'<line x1="{X}" y1="{Y - 4}" x2="{X + 24}" y2="{Y - 4}" stroke="{colour}" stroke-width="2"{style}/>')
+        e.append(f'<text x="{X + 30}" y="{Y}" font-size="11">{name}</text>')
     return e
 
 
@@ -138,12 +153,12 @@ def plot(rows):
            (label("factor_nonzeros", "LL^T factor nnz [1e6]"), MEMORY[1][2], ns,
             [r["factor_nonzeros"] / 1e6 for r in rows], False)]
     g2 = guide_pair(ns, rows[first]["peak_rss_mb"])
-    W, H = 1160, 520
+    W, H = 1160, 580
     e = [f'<svg xmlns="http://www.w3.org/2000/svg" width="{W}" height="{H}" viewBox="0 0 {W} {H}" '
          f'font-family="sans-serif">', f'<rect width="{W}" height="{H}" fill="white"/>']
-    e += panel(80, 40, 460, 400, times, g1, "time per operation [ms] (median)", "cost per Newton iteration")
+    e += panel(80, 40, 460, 400, times, g1, "time per operation [ms] (median)", "cost per Newton iteration (analysis: once per run)")
     e += panel(660, 40, 460, 400, mem, g2, "MB  /  millions of nonzeros", "memory")
-    e.append(f'<text x="{W / 2}" y="{H - 14}" text-anchor="middle" font-size="11">rotcap bench_scaling: '
+    e.append(f'<text x="{W / 2}" y="{H - 8}" text-anchor="middle" font-size="11">rotcap bench_scaling: '
              f'cost ~ N^p, p by least squares on the log-log points; guides through the smallest size</text>')
     e.append("</svg>")
     return "\n".join(e) + "\n"
