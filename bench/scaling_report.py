@@ -55,9 +55,13 @@ def table(rows, header):
         p = fit_exponent(ns, [r[key] for r in rows])
         verdict = "" if p is None else ("  <= 1.5: yes" if p <= 1.5 else "  <= 1.5: NO")
         line = f"  {name:28s} p = {'-' if p is None else f'{p:.2f}'}{verdict}"
+        if len(rows) >= 6:  # the upper sizes alone: is the growth steepening?
+            k = len(rows) // 2 + 1
+            pu = fit_exponent(ns[-k:], [r[key] for r in rows[-k:]])
+            line += f"   (largest {k} sizes: p = {'-' if pu is None else f'{pu:.2f}'})"
         if key in rows[0].get("min", {}):
             pm = fit_exponent(ns, [r["min"][key] for r in rows])
-            line += f"   (on the smallest of the repeats: p = {'-' if pm is None else f'{pm:.2f}'})"
+            line += f"   (smallest of the repeats: p = {'-' if pm is None else f'{pm:.2f}'})"
         out.append(line)
     return "\n".join(out) + "\n"
 
@@ -159,7 +163,8 @@ def plot(rows):
     e += panel(80, 40, 460, 400, times, g1, "time per operation [ms] (median)", "cost per Newton iteration (analysis: once per run)")
     e += panel(660, 40, 460, 400, mem, g2, "MB  /  millions of nonzeros", "memory")
     e.append(f'<text x="{W / 2}" y="{H - 8}" text-anchor="middle" font-size="11">rotcap bench_scaling: '
-             f'cost ~ N^p, p by least squares on the log-log points; guides through the smallest size</text>')
+             f'cost ~ N^p, p by least squares on the log-log points; guides through the smallest size\'s LDL^T time '
+             f'and peak RSS; medians, wall clock (see scaling.txt for the machine\'s load)</text>')
     e.append("</svg>")
     return "\n".join(e) + "\n"
 
