@@ -126,12 +126,16 @@ for line in open(sys.argv[1]):
     runs.append(row)
 
 
-def fmt(v):
+COUNTS = {"exit", "steps", "iterations", "factorisations", "LDL^T factorisations", "free DOFs"}
+
+
+def fmt(v, name):
+    """Counts as integers (a median of two may end in .5), the rest to 4 significant digits."""
     if v is None:
         return "-"
-    if abs(v) >= 1000 or v == int(v):
-        return f"{v:.0f}" if abs(v - round(v)) < 1e-9 or abs(v) >= 1000 else f"{v:.1f}"
-    return f"{v:.4g}"
+    if name in COUNTS:
+        return f"{v:.0f}" if v == int(v) else f"{v:.1f}"
+    return f"{v:.1f}" if abs(v) >= 1000 else f"{v:#.4g}"
 
 
 def med(side, name):
@@ -144,10 +148,10 @@ width = max(len(n) for n in names) + 2
 cols = [f"{r['side']} {r['i']}" for r in runs] + ["median old", "median new", "new/old"]
 print("".ljust(width) + "".join(c.rjust(12) for c in cols))
 for n in names:
-    cells = [fmt(r[n]) for r in runs]
+    cells = [fmt(r[n], n) for r in runs]
     mo, mn = med("old", n), med("new", n)
-    ratio = f"{mn / mo:.3f}" if mo and mn is not None else "-"
-    cells += [fmt(mo), fmt(mn), ratio]
+    ratio = f"{mn / mo:.3f}" if mo and mn is not None and n != "exit" else "-"
+    cells += [fmt(mo, n), fmt(mn, n), ratio]
     print(n.ljust(width) + "".join(c.rjust(12) for c in cells))
 print("(process wall s: the whole `rotcap run` as the script timed it, outputs and report included; "
       "wall s: the run's own solver.wall_s)")
