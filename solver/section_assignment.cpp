@@ -35,7 +35,7 @@ SectionAssignment SectionAssignment::elastic(const ShellModel& model, double E, 
 SectionAssignment SectionAssignment::for_steel(const ShellModel& model, const SteelModel& steel,
                                                 const LayeredShellSection::Options& layers, bool elastic_only) {
   if (elastic_only || !has_yield(steel)) return elastic(model, steel.E, steel.nu);
-  return one_per_thickness(model, [&](double t) { return make_shell_section(steel, t, layers.layers); });
+  return one_per_thickness(model, [&](double t) { return make_shell_section(steel, t, layers.layers, {}, layers.material_substeps); });
 }
 
 int SectionAssignment::add_section(std::shared_ptr<const ShellSection> section) {

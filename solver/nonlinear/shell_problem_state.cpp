@@ -11,7 +11,7 @@ namespace rotcap {
 
 namespace {
 
-constexpr std::size_t kHistoryWidth = 8;
+constexpr std::size_t kHistoryWidth = 11;
 
 void append_history(const std::vector<LayerState>& history, std::vector<double>& out) {
   out.reserve(history.size() * kHistoryWidth);
@@ -20,6 +20,7 @@ void append_history(const std::vector<LayerState>& history, std::vector<double>&
     out.push_back(s.equivalent_plastic_strain);
     out.insert(out.end(), s.initial_stress.data(), s.initial_stress.data() + 3);
     out.push_back(s.dissipation);
+    out.insert(out.end(), s.strain.data(), s.strain.data() + 3);
   }
 }
 
@@ -33,6 +34,7 @@ void read_history(const std::vector<double>& in, std::vector<LayerState>& histor
     history[i].equivalent_plastic_strain = p[3];
     history[i].initial_stress = Eigen::Vector3d(p[4], p[5], p[6]);
     history[i].dissipation = p[7];
+    history[i].strain = Eigen::Vector3d(p[8], p[9], p[10]);
   }
 }
 
