@@ -104,9 +104,6 @@ class ShellQ4 {
   const Options& options() const { return options_; }
 
  private:
-  using Mat6x24 = Eigen::Matrix<double, 6, 24>;
-  // Generalised-strain operator [membrane; bending] of Gauss point gp on the flat DOFs.
-  Mat6x24 strain_operator(int gp) const;
   // Drilling operator: (rz - omega of the bilinear field) = b_drill d_flat at Gauss point gp.
   Eigen::Matrix<double, 1, 24> drilling_operator(int gp) const;
   // Warping transform d_flat = W d and its transpose applied to f and K (W is never formed).
@@ -123,6 +120,7 @@ class ShellQ4 {
   std::array<Eigen::Matrix<double, 3, 4>, 4> b_incompatible_;  // membrane strains of the 4 modes
   std::array<Eigen::Matrix<double, 1, 4>, 4> w_incompatible_;  // omega of the 4 modes
   Eigen::Matrix<double, 1, 24> drill_mean_;              // element mean of b_drill
+  std::array<Eigen::Matrix<double, 1, 24>, 4> drill_rest_;  // b_drill - drill_mean_ (e - m)
 };
 
 /// Element frame of a quadrilateral: origin at the centroid of the four nodes, z along the cross
