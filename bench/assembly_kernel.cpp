@@ -4,7 +4,8 @@
 // assembly part of ShellProblem::evaluate(f, true), read from assembly_seconds(), so factorisation
 // is not counted) and residual only (evaluate(f, false)). Medians of REPEATS. Per-element and
 // per-layer-point figures are CPU time per evaluation (wall time x threads / count).
-// Prints one JSON object. Usage: bench_assembly_kernel RESULTS_DIR [REPEATS]
+// Prints one JSON object. Usage: bench_assembly_kernel RESULTS_DIR [REPEATS] [MAX_THREADS]
+// (MAX_THREADS 1 or 2, default 2: the thread counts timed are 1..MAX_THREADS)
 // (run with OPENBLAS_NUM_THREADS=1 as the program; bench/assembly_kernel.sh alternates two builds).
 #include "app/model_builder.hpp"
 #include "app/run_checkpoint.hpp"
@@ -41,6 +42,7 @@ int main(int argc, char** argv) {
   }
   const std::filesystem::path folder = argv[1];
   const int repeats = argc > 2 ? std::max(1, std::atoi(argv[2])) : 9;
+  const int max_threads = argc > 3 ? std::clamp(std::atoi(argv[3]), 1, 2) : 2;
   const CheckpointData data = read_checkpoint(folder / app::kCheckpointFile);
   const double scale = data.scalar("run.mesh_scale");
   const app::BuiltCase built =
@@ -64,7 +66,7 @@ int main(int argc, char** argv) {
 #else
   out["kernel"] = "baseline (before run-time dispatch)";
 #endif
-  for (const int threads : {1, 2}) {
+  for (int threads = 1; threads <= max_threads; ++threads) {
     ShellProblemOptions options;
     options.threads = threads;
     ShellProblem problem(model, sections, options);

@@ -93,16 +93,8 @@ Row24 edge_shear(const Eigen::Matrix<double, 2, 4>& xy, int a, int b) {
 // The membrane-bending strain operator B (6 x 24, flat DOFs) of a Gauss point has, at node i with
 // shape-function derivatives (nx, ny) = dN_i/d(x, y), the entries (shell_q4.hpp, strains)
 //   e_xx: nx u;  e_yy: ny v;  g_xy: ny u + nx v;  k_xx: nx ry;  k_yy: -ny rx;  k_xy: ny ry - nx rx,
-// so it touches only u, v, rx, ry. It is never formed: the functions below apply it node by node,
-// and the tangent works on those 16 DOFs ("compact" columns 4 i + {0, 1, 2, 3} = u, v, rx, ry).
-constexpr std::array<int, 4> kMembraneBendingDofs{0, 1, 3, 4};  // u, v, rx, ry within a node
-constexpr std::array<int, 3> kShearDofs{2, 3, 4};               // w, rx, ry: MITC4 shear
-constexpr std::array<int, 3> kDrillingDofs{0, 1, 5};            // u, v, rz: drilling penalty
-
-using Mat16 = Eigen::Matrix<double, 16, 16>;
-using Mat12 = Eigen::Matrix<double, 12, 12>;
-using Mat16x6 = Eigen::Matrix<double, 16, 6>;
-using Mat3x16 = Eigen::Matrix<double, 3, 16>;
+// so it touches only u, v, rx, ry. It is never formed: the functions below apply it node by node
+// (the tangent kernels, kernels/tangent_kernels.inc, do the same for B^T C B).
 
 // g = B d.
 Vec6 strain_of(const Eigen::Matrix<double, 2, 4>& dn, const Vec24& d) {
@@ -131,58 +123,6 @@ void add_strain_transpose(const Eigen::Matrix<double, 2, 4>& dn, const Vec6& s, 
   }
 }
 
-// B^T A for a 6-row A, on the compact columns: row 4 i + k is the compact DOF k of node i.
-template <int Cols>
-Eigen::Matrix<double, 16, Cols> strain_transpose_times(const Eigen::Matrix<double, 2, 4>& dn,
-                                                       const Eigen::Matrix<double, 6, Cols>& a) {
-  Eigen::Matrix<double, 16, Cols> out;
-  for (int i = 0; i < 4; ++i) {
-    const double nx = dn(0, i), ny = dn(1, i);
-    out.row(4 * i) = nx * a.row(0) + ny * a.row(2);
-    out.row(4 * i + 1) = ny * a.row(1) + nx * a.row(2);
-    out.row(4 * i + 2) = -(ny * a.row(4) + nx * a.row(5));
-    out.row(4 * i + 3) = nx * a.row(3) + ny * a.row(5);
-  }
-  return out;
-}
-
-// A B for a 6-column A, on the compact columns.
-template <int Rows>
-Eigen::Matrix<double, Rows, 16> times_strain(const Eigen::Matrix<double, Rows, 6>& a,
-                                             const Eigen::Matrix<double, 2, 4>& dn) {
-  Eigen::Matrix<double, Rows, 16> out;
-  for (int i = 0; i < 4; ++i) {
-    const double nx = dn(0, i), ny = dn(1, i);
-    out.col(4 * i) = nx * a.col(0) + ny * a.col(2);
-    out.col(4 * i + 1) = ny * a.col(1) + nx * a.col(2);
-    out.col(4 * i + 2) = -(ny * a.col(4) + nx * a.col(5));
-    out.col(4 * i + 3) = nx * a.col(3) + ny * a.col(5);
-  }
-  return out;
-}
-
-// The entries of a 24-row operator on the three DOFs `dofs` of every node (compact, 12 columns).
-template <int Rows>
-Eigen::Matrix<double, Rows, 12> compact_columns(const Eigen::Matrix<double, Rows, 24>& a,
-                                                const std::array<int, 3>& dofs) {
-  Eigen::Matrix<double, Rows, 12> out;
-  for (int i = 0; i < 4; ++i)
-    for (int k = 0; k < 3; ++k) out.col(3 * i + k) = a.col(6 * i + dofs[k]);
-  return out;
-}
-
-// K(full) += A(compact) for the compact DOFs `dofs` (per node) of a symmetric placement.
-template <int N, std::size_t M>
-void scatter_add(const Eigen::Matrix<double, 4 * N, 4 * N>& a, const std::array<int, M>& dofs, Mat24& k) {
-  static_assert(M == N);
-  for (int j = 0; j < 4; ++j)
-    for (int b = 0; b < N; ++b) {
-      const int col = 6 * j + dofs[b];
-      for (int i = 0; i < 4; ++i)
-        for (int c = 0; c < N; ++c) k(6 * i + dofs[c], col) += a(N * i + c, N * j + b);
-    }
-}
-
 [[noreturn]] void bad_option(const std::string& what) {
   throw std::invalid_argument("ShellQ4::Options: " + what);
 }
@@ -190,7 +130,7 @@ void scatter_add(const Eigen::Matrix<double, 4 * N, 4 * N>& a, const std::array<
 }  // namespace
 
 ShellQ4::ShellQ4(const Eigen::Matrix<double, 3, 4>& local, const Options& options)
-    : local_(local), options_(options) {
+    : local_(local), options_(options), kernels_(&tangent_kernels(options.kernel.value_or(active_kernel()))) {
   if (!(options.drilling_ratio > 0.0))
     bad_option("drilling_ratio = " + std::to_string(options.drilling_ratio) + " must be > 0");
   if (!(options.shear_correction > 0.0 && options.shear_correction <= 1.0))
@@ -435,46 +375,30 @@ ElementStatus ShellQ4::compute(const Vec24& d, const ShellSection& section,
 
   if (K != nullptr) {
     // Condensed consistent tangent K = K_dd - K_da K_aa^-1 K_ad at the converged alpha; the full
-    // 6x6 C couples the modes (membrane) to the curvatures. Each part is formed on the DOFs it
-    // touches (membrane-bending: u, v, rx, ry; shear: w, rx, ry; drilling: u, v, rz) and then
-    // placed into the 24 x 24 matrix.
-    Mat16 k_mb = Mat16::Zero();                  // sum w B^T C B
-    Eigen::Matrix<double, 16, 4> k_da_mb = Eigen::Matrix<double, 16, 4>::Zero();  // sum w B^T C_m Bi
-    Eigen::Matrix<double, 4, 16> k_ad_mb = Eigen::Matrix<double, 4, 16>::Zero();  // sum w Bi^T (C B)_m
-    Mat12 k_shear = Mat12::Zero();
-    const Eigen::Matrix<double, 1, 12> mean_c = compact_columns<1>(drill_mean_, kDrillingDofs);
-    Mat12 k_drill = drill_mean_stiffness * (mean_c.transpose() * mean_c);
-    Mat24x4 k_da = Mat24x4::Zero();
-    Mat4x24 k_ad = Mat4x24::Zero();
-    for (int gp = 0; gp < kGaussPoints; ++gp) {
-      const double w = weight_[gp];
-      const double wd = w * drill_stiffness;
-      const Mat6 cw = w * c[gp];
-      const Mat16x6 btc = strain_transpose_times<6>(dN_[gp], cw);  // w B^T C
-      k_mb.noalias() += times_strain<16>(btc, dN_[gp]);
-      k_da_mb.noalias() += btc.leftCols<3>() * b_incompatible_[gp];
-      const Mat3x16 cb_m = times_strain<3>(Eigen::Matrix<double, 3, 6>(cw.topRows<3>()), dN_[gp]);
-      k_ad_mb.noalias() += b_incompatible_[gp].transpose() * cb_m;
-      const Eigen::Matrix<double, 2, 12> bs = compact_columns<2>(b_shear_[gp], kShearDofs);
-      k_shear.noalias() += (w * shear_stiffness) * (bs.transpose() * bs);
-      const Eigen::Matrix<double, 1, 12> bd = compact_columns<1>(b_drill[gp], kDrillingDofs);
-      k_drill.noalias() += wd * (bd.transpose() * bd);
-      k_ad.noalias() -= wd * (w_incompatible_[gp].transpose() * b_drill[gp]);
-      k_da.noalias() -= wd * (b_drill[gp].transpose() * w_incompatible_[gp]);
-    }
-    Mat24& kk = *K;
-    kk.setZero();
-    scatter_add<4>(k_mb, kMembraneBendingDofs, kk);
-    scatter_add<3>(k_shear, kShearDofs, kk);
-    scatter_add<3>(k_drill, kDrillingDofs, kk);
-    for (int i = 0; i < 4; ++i)
-      for (int k = 0; k < 4; ++k) {
-        const int dof = 6 * i + kMembraneBendingDofs[k];
-        k_da.row(dof) += k_da_mb.row(4 * i + k);
-        k_ad.col(dof) += k_ad_mb.col(4 * i + k);
-      }
+    // 6x6 C couples the modes (membrane) to the curvatures (parts: kernels/tangent_kernels.hpp).
+    // The kernels read the per-Gauss-point arrays as contiguous column-major blocks.
+    static_assert(sizeof(Eigen::Matrix<double, 2, 4>) == 8 * sizeof(double) &&
+                  sizeof(Eigen::Matrix<double, 3, 4>) == 12 * sizeof(double) &&
+                  sizeof(Eigen::Matrix<double, 1, 4>) == 4 * sizeof(double) &&
+                  sizeof(Eigen::Matrix<double, 2, 24>) == 48 * sizeof(double) &&
+                  sizeof(Row24) == 24 * sizeof(double) && sizeof(Mat6) == 36 * sizeof(double));
+    kernels::ShellTangentInput in;
+    in.dN = dN_[0].data();
+    in.weight = weight_.data();
+    in.C = c[0].data();
+    in.b_incompatible = b_incompatible_[0].data();
+    in.w_incompatible = w_incompatible_[0].data();
+    in.b_shear = b_shear_[0].data();
+    in.b_drill = b_drill[0].data();
+    in.drill_mean = drill_mean_.data();
+    in.shear_stiffness = shear_stiffness;
+    in.drill_stiffness = drill_stiffness;
+    in.drill_mean_stiffness = drill_mean_stiffness;
+    Mat24x4 k_da;
+    Mat4x24 k_ad;
+    kernels_->shell_tangent(in, K->data(), k_da.data(), k_ad.data());
     const Mat4x24 a_d = k_aa_lu.solve(k_ad);  // d alpha / d d = -K_aa^-1 K_ad
-    kk.noalias() -= k_da * a_d;
+    kernels_->subtract_condensed(k_da.data(), a_d.data(), K->data());
   }
   f = ff;
   from_flat(f, K);

@@ -31,10 +31,12 @@
 //    d_flat = W d with u_flat = u - z_i ry, v_flat = v + z_i rx, and f = W^T f_flat,
 //    K = W^T K_flat W.
 
+#include "elements/kernel_dispatch.hpp"
 #include "materials/shell_section.hpp"
 
 #include <Eigen/Core>
 #include <array>
+#include <optional>
 #include <span>
 
 namespace rotcap {
@@ -69,6 +71,9 @@ class ShellQ4 {
     /// gamma_0 / G for the element-mean part of the drilling penalty, > 0 (Hughes & Brezzi 1989
     /// and Ibrahimbegovic, Taylor & Wilson 1990 use gamma = G).
     double drilling_mean_ratio = 1.0;
+    /// Flavour of the tangent kernels (kernel_dispatch.hpp); empty: active_kernel(). Naming an
+    /// unsupported flavour throws std::invalid_argument from the constructor.
+    std::optional<KernelKind> kernel;
   };
   static constexpr int kGaussPoints = 4;
 
@@ -102,6 +107,8 @@ class ShellQ4 {
   double area() const;                                   ///< mean-plane area [mm^2]
   const Eigen::Matrix<double, 3, 4>& local_coordinates() const { return local_; }
   const Options& options() const { return options_; }
+  /// The tangent kernels this element uses (options().kernel or active_kernel()).
+  const kernels::TangentKernels& kernels() const { return *kernels_; }
 
  private:
   // Drilling operator: (rz - omega of the bilinear field) = b_drill d_flat at Gauss point gp.
@@ -112,6 +119,7 @@ class ShellQ4 {
 
   Eigen::Matrix<double, 3, 4> local_;
   Options options_;
+  const kernels::TangentKernels* kernels_;
   bool warped_ = false;
   // Precomputed per Gauss point by the constructor (geometry only, no material data).
   std::array<Eigen::Matrix<double, 2, 4>, 4> dN_;        // dN/dx, dN/dy
