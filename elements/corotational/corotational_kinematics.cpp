@@ -109,6 +109,7 @@ void CorotationalKinematics::to_global(const Vec24& f_bar, const Mat24* K_bar, V
   in.L = L[0].data();
   in.F = F.data();
   in.G = G.data();
+  in.relative = relative_.data();
   kernels.corotational_tangent(in, K->data());
 
   // (3) + (4): translation rows and columns only. N P_t has blocks skew(n_j) - mean_k skew(n_k).

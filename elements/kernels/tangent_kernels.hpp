@@ -29,7 +29,8 @@ struct ShellTangentInput {
 
 /// The corotational tangent (corotational_kinematics.cpp, terms (1) and (2)):
 ///   K = W^T (H^T K_bar + Lambda) B - P^T F G,  W = E^T P,  B = H W,
-/// from P's translation columns Pc (its rotation columns are unit columns).
+/// from P's translation columns Pc (its rotation columns are unit columns) and the node positions
+/// relative to the centroid that define P (corotational_kinematics.cpp).
 struct CorotationalTangentInput {
   const double* K_bar;  ///< 24 x 24, local core tangent
   const double* Pc;     ///< 24 x 12, P(:, translations)
@@ -38,6 +39,7 @@ struct CorotationalTangentInput {
   const double* L;      ///< 4 x (3 x 3): Lambda_i = dH^T m_bar / dtheta_bar
   const double* F;      ///< 24 x 3: [skew(f_g,1); ...; skew(f_g,8)]
   const double* G;      ///< 3 x 12: spin-fitter
+  const double* relative;  ///< 3 x 4: x_i - x_c, current nodes relative to their centroid [mm]
 };
 
 struct TangentKernels {

@@ -45,7 +45,9 @@ TEST(KernelDispatch, BaselineIsAlwaysAvailableAndNamed) {
   EXPECT_TRUE(kernel_supported(active));
   // The forced choice of the environment is what the process runs with.
   const char* forced = std::getenv("ROTCAP_KERNEL");
-  if (forced != nullptr && std::strcmp(forced, "baseline") == 0) EXPECT_EQ(active, KernelKind::Baseline);
+  if (forced != nullptr && std::strcmp(forced, "baseline") == 0) {
+    EXPECT_EQ(active, KernelKind::Baseline);
+  }
   if (!kernel_supported(KernelKind::Avx2)) {
     EXPECT_EQ(active, KernelKind::Baseline);
     EXPECT_THROW(tangent_kernels(KernelKind::Avx2), std::invalid_argument);
