@@ -34,6 +34,8 @@
 
 #include "elements/shell_q4.hpp"
 
+#include "elements/strain_operator.hpp"
+
 #include <Eigen/LU>
 #include <cmath>
 #include <limits>
@@ -88,39 +90,6 @@ Row24 edge_shear(const Eigen::Matrix<double, 2, 4>& xy, int a, int b) {
     row(6 * n + 4) = 0.5 * dx;
   }
   return row;
-}
-
-// The membrane-bending strain operator B (6 x 24, flat DOFs) of a Gauss point has, at node i with
-// shape-function derivatives (nx, ny) = dN_i/d(x, y), the entries (shell_q4.hpp, strains)
-//   e_xx: nx u;  e_yy: ny v;  g_xy: ny u + nx v;  k_xx: nx ry;  k_yy: -ny rx;  k_xy: ny ry - nx rx,
-// so it touches only u, v, rx, ry. It is never formed: the functions below apply it node by node
-// (the tangent kernels, kernels/tangent_kernels.inc, do the same for B^T C B).
-
-// g = B d.
-Vec6 strain_of(const Eigen::Matrix<double, 2, 4>& dn, const Vec24& d) {
-  Vec6 g = Vec6::Zero();
-  for (int i = 0; i < 4; ++i) {
-    const double nx = dn(0, i), ny = dn(1, i);
-    const double u = d(6 * i), v = d(6 * i + 1), rx = d(6 * i + 3), ry = d(6 * i + 4);
-    g(0) += nx * u;
-    g(1) += ny * v;
-    g(2) += ny * u + nx * v;
-    g(3) += nx * ry;
-    g(4) -= ny * rx;
-    g(5) += ny * ry - nx * rx;
-  }
-  return g;
-}
-
-// f += B^T s.
-void add_strain_transpose(const Eigen::Matrix<double, 2, 4>& dn, const Vec6& s, Vec24& f) {
-  for (int i = 0; i < 4; ++i) {
-    const double nx = dn(0, i), ny = dn(1, i);
-    f(6 * i) += nx * s(0) + ny * s(2);
-    f(6 * i + 1) += ny * s(1) + nx * s(2);
-    f(6 * i + 3) -= ny * s(4) + nx * s(5);
-    f(6 * i + 4) += nx * s(3) + ny * s(5);
-  }
 }
 
 [[noreturn]] void bad_option(const std::string& what) {
@@ -272,7 +241,7 @@ ElementStatus ShellQ4::compute(const Vec24& d, const ShellSection& section,
   // element mean (e - m) is drill_rest_.
   const std::array<Row24, 4>& b_drill = drill_rest_;
   std::array<Vec6, 4> g_nodal;
-  for (int gp = 0; gp < kGaussPoints; ++gp) g_nodal[gp] = strain_of(dN_[gp], df);
+  for (int gp = 0; gp < kGaussPoints; ++gp) g_nodal[gp] = strain_operator::apply(dN_[gp], df);
   const double drill_mean = drill_mean_.dot(df);
 
   // Higher-order drilling energy 1/2 gamma t int (b_drill d - w_inc alpha)^2 dA: its constant
@@ -368,7 +337,7 @@ ElementStatus ShellQ4::compute(const Vec24& d, const ShellSection& section,
     const double w = weight_[gp];
     q[gp].noalias() = shear_stiffness * (b_shear_[gp] * df);  // Q = k_s G t gamma
     const double drill_mismatch = b_drill[gp].dot(df) - w_incompatible_[gp].dot(alpha);
-    add_strain_transpose(dN_[gp], w * r[gp], ff);
+    strain_operator::add_transpose(dN_[gp], w * r[gp], ff);
     ff.noalias() += w * (b_shear_[gp].transpose() * q[gp]);
     ff.noalias() += (w * drill_stiffness * drill_mismatch) * b_drill[gp].transpose();
   }
