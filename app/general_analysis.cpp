@@ -5,6 +5,7 @@
 #include "app/logging.hpp"
 #include "app/run_recorder.hpp"
 #include "core/text_format.hpp"
+#include "elements/kernel_dispatch.hpp"
 #include "io/case_echo.hpp"
 #include "io/input_error.hpp"
 #include "solver/linear_static.hpp"
@@ -97,7 +98,7 @@ int run_general_linear(const CaseInput& input, const ShellModel& model, const fs
   summary["residual_relative"] = result.backward_error;
   summary["solver"] = {{"factor_nonzeros", s.factor_nonzeros}, {"assembly_s", s.assembly_seconds},
                        {"analysis_s", s.analysis_seconds}, {"factorisation_s", s.factorization_seconds},
-                       {"solve_s", s.solve_seconds}};
+                       {"solve_s", s.solve_seconds}, {"kernel", kernel_name(active_kernel())}};
   recorder.write_summary(summary);
   log_info("largest translation " + std::to_string(max_translation) + " mm; fields in " +
            (folder / "fields.pvd").string());

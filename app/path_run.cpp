@@ -4,6 +4,7 @@
 #include "app/interrupt.hpp"
 #include "app/logging.hpp"
 #include "core/check.hpp"
+#include "elements/kernel_dispatch.hpp"
 #include "solver/dof_map.hpp"
 
 #include <memory>
@@ -94,7 +95,8 @@ nlohmann::json solver_summary(const PathSummary& ps, const ShellProblem& problem
           {"factorisation_s", problem.factorisation_seconds()},
           {"indefinite_factorisations", problem.indefinite_factorisations()},
           {"indefinite_factorisation_s", problem.indefinite_factorisation_seconds()}, {"wall_s", wall}, {"free_dofs", problem.size()},
-          {"nodes", model.node_count()}, {"elements", model.element_count()}};
+          {"nodes", model.node_count()}, {"elements", model.element_count()},
+          {"kernel", kernel_name(active_kernel())}};  // the element tangent kernels' flavour
 }
 
 int finish_path(const PathSummary& ps, const std::string& stop_reason, double wall) {

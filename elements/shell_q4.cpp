@@ -34,6 +34,8 @@
 
 #include "elements/shell_q4.hpp"
 
+#include "elements/strain_operator.hpp"
+
 #include <Eigen/LU>
 #include <cmath>
 #include <limits>
@@ -97,7 +99,7 @@ Row24 edge_shear(const Eigen::Matrix<double, 2, 4>& xy, int a, int b) {
 }  // namespace
 
 ShellQ4::ShellQ4(const Eigen::Matrix<double, 3, 4>& local, const Options& options)
-    : local_(local), options_(options) {
+    : local_(local), options_(options), kernels_(&tangent_kernels(options.kernel.value_or(active_kernel()))) {
   if (!(options.drilling_ratio > 0.0))
     bad_option("drilling_ratio = " + std::to_string(options.drilling_ratio) + " must be > 0");
   if (!(options.shear_correction > 0.0 && options.shear_correction <= 1.0))
@@ -167,25 +169,10 @@ ShellQ4::ShellQ4(const Eigen::Matrix<double, 3, 4>& local, const Options& option
   drill_mean_.setZero();
   for (int gp = 0; gp < kGaussPoints; ++gp) drill_mean_ += weight_[gp] * drilling_operator(gp);
   drill_mean_ /= area();
+  for (int gp = 0; gp < kGaussPoints; ++gp) drill_rest_[gp] = drilling_operator(gp) - drill_mean_;
 }
 
 double ShellQ4::area() const { return weight_[0] + weight_[1] + weight_[2] + weight_[3]; }
-
-ShellQ4::Mat6x24 ShellQ4::strain_operator(int gp) const {
-  Mat6x24 b = Mat6x24::Zero();
-  for (int i = 0; i < 4; ++i) {
-    const double nx = dN_[gp](0, i), ny = dN_[gp](1, i);
-    b(0, 6 * i) = nx;          // e_xx = u_x
-    b(1, 6 * i + 1) = ny;      // e_yy = v_y
-    b(2, 6 * i) = ny;          // g_xy = u_y + v_x
-    b(2, 6 * i + 1) = nx;
-    b(3, 6 * i + 4) = nx;      // k_xx = ry_x
-    b(4, 6 * i + 3) = -ny;     // k_yy = -rx_y
-    b(5, 6 * i + 4) = ny;      // k_xy = ry_y - rx_x
-    b(5, 6 * i + 3) = -nx;
-  }
-  return b;
-}
 
 Eigen::Matrix<double, 1, 24> ShellQ4::drilling_operator(int gp) const {
   const Eigen::Matrix<double, 1, 4> n = shape(gauss_xi(gp), gauss_eta(gp));
@@ -250,16 +237,11 @@ ElementStatus ShellQ4::compute(const Vec24& d, const ShellSection& section,
   const double drill_stiffness = options_.drilling_ratio * section.shear_modulus() * t;
   const double drill_mean_stiffness = options_.drilling_mean_ratio * section.shear_modulus() * t * area();
 
-  // Per Gauss point: strain operator, drilling operator minus its element mean (e - m), nodal
-  // part of the generalised strains.
-  std::array<Mat6x24, 4> b;
-  std::array<Row24, 4> b_drill;
+  // Per Gauss point: nodal part of the generalised strains; the drilling operator minus its
+  // element mean (e - m) is drill_rest_.
+  const std::array<Row24, 4>& b_drill = drill_rest_;
   std::array<Vec6, 4> g_nodal;
-  for (int gp = 0; gp < kGaussPoints; ++gp) {
-    b[gp] = strain_operator(gp);
-    b_drill[gp] = drilling_operator(gp) - drill_mean_;
-    g_nodal[gp].noalias() = b[gp] * df;
-  }
+  for (int gp = 0; gp < kGaussPoints; ++gp) g_nodal[gp] = strain_operator::apply(dN_[gp], df);
   const double drill_mean = drill_mean_.dot(df);
 
   // Higher-order drilling energy 1/2 gamma t int (b_drill d - w_inc alpha)^2 dA: its constant
@@ -351,36 +333,41 @@ ElementStatus ShellQ4::compute(const Vec24& d, const ShellSection& section,
   // Internal force at the converged alpha: membrane + bending, MITC4 shear, drilling.
   Vec24 ff = (drill_mean_stiffness * drill_mean) * drill_mean_.transpose();
   std::array<Eigen::Vector2d, 4> q;
-  std::array<double, 4> drill_mismatch;
   for (int gp = 0; gp < kGaussPoints; ++gp) {
     const double w = weight_[gp];
     q[gp].noalias() = shear_stiffness * (b_shear_[gp] * df);  // Q = k_s G t gamma
-    drill_mismatch[gp] = b_drill[gp].dot(df) - w_incompatible_[gp].dot(alpha);
-    ff.noalias() += w * (b[gp].transpose() * r[gp] + b_shear_[gp].transpose() * q[gp]);
-    ff.noalias() += (w * drill_stiffness * drill_mismatch[gp]) * b_drill[gp].transpose();
+    const double drill_mismatch = b_drill[gp].dot(df) - w_incompatible_[gp].dot(alpha);
+    strain_operator::add_transpose(dN_[gp], w * r[gp], ff);
+    ff.noalias() += w * (b_shear_[gp].transpose() * q[gp]);
+    ff.noalias() += (w * drill_stiffness * drill_mismatch) * b_drill[gp].transpose();
   }
 
   if (K != nullptr) {
     // Condensed consistent tangent K = K_dd - K_da K_aa^-1 K_ad at the converged alpha; the full
-    // 6x6 C couples the modes (membrane) to the curvatures.
-    Mat24& kk = *K;
-    kk.noalias() = drill_mean_stiffness * (drill_mean_.transpose() * drill_mean_);
-    Mat24x4 k_da = Mat24x4::Zero();
-    Mat4x24 k_ad = Mat4x24::Zero();
-    for (int gp = 0; gp < kGaussPoints; ++gp) {
-      const double w = weight_[gp];
-      const double wd = w * drill_stiffness;
-      const Eigen::Matrix<double, 6, 24> cb = c[gp] * b[gp];
-      kk.noalias() += w * (b[gp].transpose() * cb);
-      kk.noalias() += (w * shear_stiffness) * (b_shear_[gp].transpose() * b_shear_[gp]);
-      kk.noalias() += wd * (b_drill[gp].transpose() * b_drill[gp]);
-      k_ad.noalias() += w * (b_incompatible_[gp].transpose() * cb.topRows<3>());
-      k_ad.noalias() -= wd * (w_incompatible_[gp].transpose() * b_drill[gp]);
-      k_da.noalias() += w * (b[gp].transpose() * (c[gp].leftCols<3>() * b_incompatible_[gp]));
-      k_da.noalias() -= wd * (b_drill[gp].transpose() * w_incompatible_[gp]);
-    }
+    // 6x6 C couples the modes (membrane) to the curvatures (parts: kernels/tangent_kernels.hpp).
+    // The kernels read the per-Gauss-point arrays as contiguous column-major blocks.
+    static_assert(sizeof(Eigen::Matrix<double, 2, 4>) == 8 * sizeof(double) &&
+                  sizeof(Eigen::Matrix<double, 3, 4>) == 12 * sizeof(double) &&
+                  sizeof(Eigen::Matrix<double, 1, 4>) == 4 * sizeof(double) &&
+                  sizeof(Eigen::Matrix<double, 2, 24>) == 48 * sizeof(double) &&
+                  sizeof(Row24) == 24 * sizeof(double) && sizeof(Mat6) == 36 * sizeof(double));
+    kernels::ShellTangentInput in;
+    in.dN = dN_[0].data();
+    in.weight = weight_.data();
+    in.C = c[0].data();
+    in.b_incompatible = b_incompatible_[0].data();
+    in.w_incompatible = w_incompatible_[0].data();
+    in.b_shear = b_shear_[0].data();
+    in.b_drill = b_drill[0].data();
+    in.drill_mean = drill_mean_.data();
+    in.shear_stiffness = shear_stiffness;
+    in.drill_stiffness = drill_stiffness;
+    in.drill_mean_stiffness = drill_mean_stiffness;
+    Mat24x4 k_da;
+    Mat4x24 k_ad;
+    kernels_->shell_tangent(in, K->data(), k_da.data(), k_ad.data());
     const Mat4x24 a_d = k_aa_lu.solve(k_ad);  // d alpha / d d = -K_aa^-1 K_ad
-    kk.noalias() -= k_da * a_d;
+    kernels_->subtract_condensed(k_da.data(), a_d.data(), K->data());
   }
   f = ff;
   from_flat(f, K);

@@ -31,10 +31,12 @@
 //    d_flat = W d with u_flat = u - z_i ry, v_flat = v + z_i rx, and f = W^T f_flat,
 //    K = W^T K_flat W.
 
+#include "elements/kernel_dispatch.hpp"
 #include "materials/shell_section.hpp"
 
 #include <Eigen/Core>
 #include <array>
+#include <optional>
 #include <span>
 
 namespace rotcap {
@@ -69,6 +71,9 @@ class ShellQ4 {
     /// gamma_0 / G for the element-mean part of the drilling penalty, > 0 (Hughes & Brezzi 1989
     /// and Ibrahimbegovic, Taylor & Wilson 1990 use gamma = G).
     double drilling_mean_ratio = 1.0;
+    /// Flavour of the tangent kernels (kernel_dispatch.hpp); empty: active_kernel(). Naming an
+    /// unsupported flavour throws std::invalid_argument from the constructor.
+    std::optional<KernelKind> kernel;
   };
   static constexpr int kGaussPoints = 4;
 
@@ -102,11 +107,10 @@ class ShellQ4 {
   double area() const;                                   ///< mean-plane area [mm^2]
   const Eigen::Matrix<double, 3, 4>& local_coordinates() const { return local_; }
   const Options& options() const { return options_; }
+  /// The tangent kernels this element uses (options().kernel or active_kernel()).
+  const kernels::TangentKernels& kernels() const { return *kernels_; }
 
  private:
-  using Mat6x24 = Eigen::Matrix<double, 6, 24>;
-  // Generalised-strain operator [membrane; bending] of Gauss point gp on the flat DOFs.
-  Mat6x24 strain_operator(int gp) const;
   // Drilling operator: (rz - omega of the bilinear field) = b_drill d_flat at Gauss point gp.
   Eigen::Matrix<double, 1, 24> drilling_operator(int gp) const;
   // Warping transform d_flat = W d and its transpose applied to f and K (W is never formed).
@@ -115,6 +119,7 @@ class ShellQ4 {
 
   Eigen::Matrix<double, 3, 4> local_;
   Options options_;
+  const kernels::TangentKernels* kernels_;
   bool warped_ = false;
   // Precomputed per Gauss point by the constructor (geometry only, no material data).
   std::array<Eigen::Matrix<double, 2, 4>, 4> dN_;        // dN/dx, dN/dy
@@ -123,6 +128,7 @@ class ShellQ4 {
   std::array<Eigen::Matrix<double, 3, 4>, 4> b_incompatible_;  // membrane strains of the 4 modes
   std::array<Eigen::Matrix<double, 1, 4>, 4> w_incompatible_;  // omega of the 4 modes
   Eigen::Matrix<double, 1, 24> drill_mean_;              // element mean of b_drill
+  std::array<Eigen::Matrix<double, 1, 24>, 4> drill_rest_;  // b_drill - drill_mean_ (e - m)
 };
 
 /// Element frame of a quadrilateral: origin at the centroid of the four nodes, z along the cross

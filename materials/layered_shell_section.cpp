@@ -53,6 +53,9 @@ ReturnStatus LayeredShellSection::evaluate(const Vec6& g, std::span<const LayerS
   ReturnStatus worst = ReturnStatus::Elastic;
   Eigen::Vector3d sigma;
   Eigen::Matrix3d D;
+  // Layers that stay elastic have D = C_el (J2PlaneStress): their weights are summed and C_el is
+  // added once, sum w C_el = (sum w) C_el (the same tangent, to round-off).
+  double w_elastic = 0.0, wz_elastic = 0.0, wzz_elastic = 0.0;
   for (std::size_t i = 0; i < z_.size(); ++i) {
     const double z = z_[i], w = w_[i];
     // eps(z) = e + z k
@@ -63,12 +66,23 @@ ReturnStatus LayeredShellSection::evaluate(const Vec6& g, std::span<const LayerS
     // N = sum w sigma, M = sum w z sigma
     r.head<3>() += w * sigma;
     r.tail<3>() += (w * z) * sigma;
-    if (C) {
-      // dN/de = sum w D, dN/dk = dM/de = sum w z D, dM/dk = sum w z^2 D
-      C->topLeftCorner<3, 3>() += w * D;
-      C->topRightCorner<3, 3>() += (w * z) * D;
-      C->bottomRightCorner<3, 3>() += (w * z * z) * D;
+    if (!C) continue;
+    if (s == ReturnStatus::Elastic) {
+      w_elastic += w;
+      wz_elastic += w * z;
+      wzz_elastic += w * z * z;
+      continue;
     }
+    // dN/de = sum w D, dN/dk = dM/de = sum w z D, dM/dk = sum w z^2 D
+    C->topLeftCorner<3, 3>() += w * D;
+    C->topRightCorner<3, 3>() += (w * z) * D;
+    C->bottomRightCorner<3, 3>() += (w * z * z) * D;
+  }
+  if (C && w_elastic > 0.0) {
+    const Eigen::Matrix3d& c_el = material_.elastic_matrix();
+    C->topLeftCorner<3, 3>() += w_elastic * c_el;
+    C->topRightCorner<3, 3>() += wz_elastic * c_el;
+    C->bottomRightCorner<3, 3>() += wzz_elastic * c_el;
   }
   if (C) C->bottomLeftCorner<3, 3>() = C->topRightCorner<3, 3>().transpose();
   return worst;

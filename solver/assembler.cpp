@@ -67,7 +67,7 @@ AssemblySummary Assembler::assemble(const ElementKernel& kernel, std::vector<dou
 #pragma omp parallel num_threads(threads)
   {
     // Per-thread scratch, allocated once per call on the thread's stack.
-    Mat24 k;
+    Mat24 k, ks;
     Vec24 f;
     for (const std::vector<int>& colour : colours_) {
       const int count = static_cast<int>(colour.size());
@@ -95,18 +95,22 @@ AssemblySummary Assembler::assemble(const ElementKernel& kernel, std::vector<dou
           continue;
         }
         if (vals) {
-          const std::span<const int> map = pattern_.element_map(e);
-          const std::span<const int> eq = pattern_.element_equations(e);
+          // The symmetric part 1/2 (K + K^T), formed once (vectorised), is read column by column.
+          // Distinct equations: the pair (i, j) is the only contribution to its upper entry. The
+          // same equation twice (an element with a repeated node, e.g. collapsed onto a master)
+          // lands on the diagonal, which then receives both k_ij and k_ji = 2 ks_ij (exact).
+          ks.noalias() = 0.5 * (k + k.transpose());
+          const int* map = pattern_.element_map(e).data();
+          const int* eq = pattern_.element_equations(e).data();
           for (int j = 0; j < SparsePattern::kElementDofs; ++j) {
+            const int* column_map = map + SparsePattern::pair_index(0, j);
+            const double* column = ks.col(j).data();
+            const int eq_j = eq[j];
             for (int i = 0; i < j; ++i) {
-              const int at = map[SparsePattern::pair_index(i, j)];
-              // Distinct equations: the pair (i, j) is the only contribution to its upper entry,
-              // and the symmetric part is stored. The same equation twice (an element with a
-              // repeated node, e.g. collapsed onto a master) lands on the diagonal, which then
-              // receives both k_ij and k_ji.
-              if (at >= 0) vals[at] += eq[i] == eq[j] ? k(i, j) + k(j, i) : 0.5 * (k(i, j) + k(j, i));
+              const int at = column_map[i];
+              if (at >= 0) vals[at] += eq[i] == eq_j ? 2.0 * column[i] : column[i];
             }
-            const int at = map[SparsePattern::pair_index(j, j)];
+            const int at = column_map[j];
             if (at >= 0) vals[at] += k(j, j);
           }
         }

@@ -2,6 +2,8 @@
 
 #include "elements/corotational/rotation.hpp"
 
+#include <array>
+
 namespace rotcap {
 
 namespace {
@@ -47,8 +49,8 @@ Mat24 CorotationalKinematics::projector() const {
   return P;
 }
 
-void CorotationalKinematics::to_global(const Vec24& f_bar, const Mat24* K_bar, Vec24& f,
-                                       Mat24* K) const {
+void CorotationalKinematics::to_global(const Vec24& f_bar, const Mat24* K_bar, Vec24& f, Mat24* K,
+                                       const kernels::TangentKernels& kernels) const {
   const Eigen::Matrix3d& Re = frame_.rotation();
 
   // f_g = E H^T f_bar: local moments through H^T (virtual work of d theta_bar = H dw_bar), then
@@ -79,37 +81,43 @@ void CorotationalKinematics::to_global(const Vec24& f_bar, const Mat24* K_bar, V
   //  (3) -(delta S)^T f_g with P^T = P_t - G^T S^T: +G^T N P_t d,
   //      N = [skew(n_1) 0 ... skew(n_4) 0];
   //  (4) -(delta G)^T mu = -d(G^T mu)/du d (frame curvature; corotational_frame.cpp).
-  const Mat24 P = projector();
-  Mat24 W;  // E^T P
-  for (int i = 0; i < 8; ++i)
-    W.middleRows<3>(3 * i).noalias() = Re.transpose() * P.middleRows<3>(3 * i);
-  Mat24 B = W;  // H E^T P
-  for (int i = 0; i < 4; ++i) B.middleRows<3>(6 * i + 3) = H_[i] * W.middleRows<3>(6 * i + 3);
-
-  // (1): M = (H^T K_bar + Lambda) B, K = W^T M.
-  Mat24 M;
-  M.noalias() = (*K_bar) * B;
-  for (int i = 0; i < 4; ++i) {
-    const Eigen::Matrix3d L = rotation_vector_tangent_derivative(d_bar_.segment<3>(6 * i + 3),
-                                                                 f_bar.segment<3>(6 * i + 3));
-    M.middleRows<3>(6 * i + 3) = H_[i].transpose() * M.middleRows<3>(6 * i + 3);
-    M.middleRows<3>(6 * i + 3).noalias() += L * B.middleRows<3>(6 * i + 3);
-  }
-  K->noalias() = W.transpose() * M;
-
-  // (2): -P^T F G; G has no rotational columns, so only translation columns of K change.
+  // P's rotation columns are unit columns (P_t and S G touch translation columns only), so only
+  // Pc = P(:, translations), 24 x 12, is formed:
+  //   rows of translation i: delta_ij I - I/4 + skew(x_i - x_c) G_j;  rows of rotation i: -G_j.
+  // Terms (1) and (2) are the kernel's (kernels/tangent_kernels.hpp).
   const Eigen::Matrix<double, 3, 12>& G = frame_.spin_fitter();
+  Eigen::Matrix<double, 24, 12> Pc;
+  for (int i = 0; i < 4; ++i) {
+    const Eigen::Matrix3d sk = skew(relative_.col(i));
+    for (int j = 0; j < 4; ++j) {
+      Pc.block<3, 3>(6 * i, 3 * j).noalias() = sk * G.middleCols<3>(3 * j);
+      Pc.block<3, 3>(6 * i, 3 * j).diagonal().array() += i == j ? 0.75 : -0.25;
+      Pc.block<3, 3>(6 * i + 3, 3 * j) = -G.middleCols<3>(3 * j);
+    }
+  }
+  std::array<Eigen::Matrix3d, 4> L;
+  for (int i = 0; i < 4; ++i)
+    L[i] = rotation_vector_tangent_derivative(d_bar_.segment<3>(6 * i + 3), f_bar.segment<3>(6 * i + 3));
   Mat24x3 F;
   for (int i = 0; i < 8; ++i) F.middleRows<3>(3 * i) = skew(fg.segment<3>(3 * i));
-  const Mat24x3 PtF = P.transpose() * F;
-  for (int b = 0; b < 4; ++b) K->middleCols<3>(6 * b).noalias() -= PtF * G.middleCols<3>(3 * b);
+  static_assert(sizeof(std::array<Eigen::Matrix3d, 4>) == 36 * sizeof(double));
+  kernels::CorotationalTangentInput in;
+  in.K_bar = K_bar->data();
+  in.Pc = Pc.data();
+  in.Re = Re.data();
+  in.H = H_[0].data();
+  in.L = L[0].data();
+  in.F = F.data();
+  in.G = G.data();
+  in.relative = relative_.data();
+  kernels.corotational_tangent(in, K->data());
 
   // (3) + (4): translation rows and columns only. N P_t has blocks skew(n_j) - mean_k skew(n_k).
   Eigen::Matrix<double, 3, 12> NPt;
   const Eigen::Matrix3d mean_skew = skew(mean_force);
   for (int j = 0; j < 4; ++j) NPt.middleCols<3>(3 * j) = skew(fg.segment<3>(6 * j)) - mean_skew;
   const Eigen::Matrix<double, 12, 12> Ktt =
-      G.transpose() * NPt - frame_.spin_fitter_derivative(mu);
+      G.transpose().lazyProduct(NPt) - frame_.spin_fitter_derivative(mu);
   for (int a = 0; a < 4; ++a)
     for (int b = 0; b < 4; ++b) K->block<3, 3>(6 * a, 6 * b) += Ktt.block<3, 3>(3 * a, 3 * b);
 }

@@ -38,6 +38,7 @@
 // rotations, e.g. a major-axis moment at a reference node with twist restrained, does not spoil it.
 
 #include "elements/corotational/corotational_frame.hpp"
+#include "elements/kernel_dispatch.hpp"
 
 #include <Eigen/Core>
 #include <array>
@@ -66,8 +67,12 @@ class CorotationalKinematics {
 
   /// Global force f and (if K != nullptr) the consistent tangent from the core's local force
   /// f_bar = f_bar(d_bar) and (if K != nullptr) its local tangent K_bar = d f_bar / d d_bar.
-  /// K_bar may be nullptr only when K is. Requires valid().
-  void to_global(const Vec24& f_bar, const Mat24* K_bar, Vec24& f, Mat24* K) const;
+  /// K_bar may be nullptr only when K is. Requires valid(). kernels: the tangent kernels' flavour.
+  void to_global(const Vec24& f_bar, const Mat24* K_bar, Vec24& f, Mat24* K,
+                 const kernels::TangentKernels& kernels) const;
+  void to_global(const Vec24& f_bar, const Mat24* K_bar, Vec24& f, Mat24* K) const {
+    to_global(f_bar, K_bar, f, K, tangent_kernels(active_kernel()));
+  }
 
   /// The projector P (24 x 24, global axes): P v removes from v its rigid-body part, P S = 0.
   Mat24 projector() const;

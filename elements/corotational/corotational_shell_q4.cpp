@@ -73,7 +73,7 @@ ElementStatus CorotationalShellQ4::compute(const NodalCoordinates& x, const Noda
                                              f_bar, K != nullptr ? &K_bar : nullptr, out, alpha_start,
                                              alpha_end);
   if (status != ElementStatus::Ok) return status;
-  kin.to_global(f_bar, K != nullptr ? &K_bar : nullptr, f, K);
+  kin.to_global(f_bar, K != nullptr ? &K_bar : nullptr, f, K, core_.kernels());
   if (!f.allFinite() || (K != nullptr && !K->allFinite())) return ElementStatus::NotFinite;
   return ElementStatus::Ok;
 }
