@@ -10,7 +10,9 @@
 #include "io/input_error.hpp"
 
 #include <CLI/CLI.hpp>
+#include <unistd.h>
 
+#include <cstdlib>
 #include <iostream>
 #include <string>
 
@@ -40,6 +42,13 @@ void add_common(CLI::App* cmd, rotcap::app::CommandOptions& o, bool with_case, b
 
 int main(int argc, char** argv) {
   using namespace rotcap::app;
+  // 0. OpenMP threads waiting at the assembler's colour barriers spin by default (libgomp), which on a
+  // shared machine made 2-thread assembly 3-5 times slower than 1 thread; OMP_WAIT_POLICY=passive
+  // removed that (bench/results/assembly_kernel.txt). libgomp reads the variable once, when it is
+  // loaded, so unless the user chose a policy the program runs itself again with "passive" (same
+  // process id; if the exec fails it goes on as it is).
+  if (std::getenv("OMP_WAIT_POLICY") == nullptr && ::setenv("OMP_WAIT_POLICY", "passive", 1) == 0)
+    ::execv("/proc/self/exe", argv);
   // 1. Parse the command line.
   CLI::App cli{"rotcap: moment-rotation curves and rotation capacity of steel I-beam plastic hinges by "
                "nonlinear shell analysis (units: mm, N, MPa, rad)"};

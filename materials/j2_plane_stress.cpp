@@ -80,10 +80,14 @@ ReturnStatus J2PlaneStress::substepped(const Eigen::Vector3d& strain, const Laye
   for (int k = 1; k <= n; ++k) {
     const double f = double(k) / n;
     const Eigen::Vector3d eps_k = k == n ? strain : Eigen::Vector3d(committed.strain + f * increment);
+    const double previous_dgamma = J.dgamma;
     J = ReturnJacobians{};
-    const ReturnStatus s = return_once(eps_k, from, trial, stress, nullptr, tangent ? &J : nullptr);
+    J.dgamma = previous_dgamma;
+    J.derivatives = tangent != nullptr;
+    const ReturnStatus s = return_once(eps_k, from, trial, stress, nullptr, &J);
     if (s == ReturnStatus::NotConverged) return s;
     if (s == ReturnStatus::Plastic) worst = s;
+    if (s == ReturnStatus::Elastic) J.dgamma = 0.0;
     if (tangent) {
       const Eigen::Matrix3d T = C_ * (f * Eigen::Matrix3d::Identity() - G);
       ds = J.ds_dtrial * T + J.ds_da * g;
@@ -152,7 +156,8 @@ ReturnStatus J2PlaneStress::return_once(const Eigen::Vector3d& strain, const Lay
   const double c = std::min(a, g2);
   double lo = 0.0;
   double hi = (std::sqrt(1.5 * (A + B)) / curve_.minimum_stress() - 1.0) / c;
-  double dg = 0.0;
+  // Start from the substep before's dgamma (equal strain increments), else from 0.
+  double dg = jacobians && jacobians->dgamma > 0.0 && jacobians->dgamma < hi ? jacobians->dgamma : 0.0;
   Eval e = evaluate(dg);
   bool converged = false;
   for (int it = 0; it < options_.max_iterations; ++it) {
@@ -203,7 +208,8 @@ ReturnStatus J2PlaneStress::return_once(const Eigen::Vector3d& strain, const Lay
     out = Xi - (n * n.transpose()) / (Ps.dot(n) + beta);
   };
   if (tangent) return_tangent(*tangent);
-  if (jacobians) {
+  if (jacobians) jacobians->dgamma = dg;
+  if (jacobians && jacobians->derivatives) {
     // At the converged dgamma (e): F(dgamma; s_tr, a_n) = 1/2 phi^2 - 1/3 sigma_y(ep)^2 with
     // ep = a_n + sqrt(2/3) dgamma phi, so dF/da_n = -2/3 sigma_y H and, at fixed dgamma,
     // dphi^2/ds_tr = (sum/3) [1,1,0] / d1^2 + [diff, -diff, 4 s12] / d2^2.

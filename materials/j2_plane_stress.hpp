@@ -89,6 +89,8 @@ class J2PlaneStress {
     Eigen::Vector3d ds_da = Eigen::Vector3d::Zero();
     Eigen::RowVector3d da_dtrial = Eigen::RowVector3d::Zero();
     double da_da = 1.0;
+    double dgamma = 0.0;  ///< in: the first guess of the consistency iteration; out: the converged one
+    bool derivatives = true;  ///< false: only dgamma is wanted
   };
   /// One backward-Euler step from `committed` to `strain` (Simo & Taylor); `jacobians` (optional)
   /// receives the derivatives the substep chain needs, `tangent` (optional) the consistent tangent.

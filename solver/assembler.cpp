@@ -71,7 +71,7 @@ AssemblySummary Assembler::assemble(const ElementKernel& kernel, std::vector<dou
     Vec24 f;
     for (const std::vector<int>& colour : colours_) {
       const int count = static_cast<int>(colour.size());
-#pragma omp for schedule(static)
+#pragma omp for schedule(dynamic, 8)
       for (int idx = 0; idx < count; ++idx) {
         if (failed.load(std::memory_order_relaxed)) continue;
         const int e = colour[idx];
