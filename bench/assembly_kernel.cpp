@@ -7,8 +7,7 @@
 // Prints one JSON object. Usage: bench_assembly_kernel RESULTS_DIR [REPEATS] [MAX_THREADS]
 // (MAX_THREADS 1 or 2, default 2: the thread counts timed are 1..MAX_THREADS)
 // (run with OPENBLAS_NUM_THREADS=1 as the program; bench/assembly_kernel.sh alternates two builds).
-#include "app/model_builder.hpp"
-#include "app/run_checkpoint.hpp"
+#include "bench/checkpoint_model.hpp"
 #include "solver/nonlinear/shell_problem.hpp"
 #include "solver/section_assignment.hpp"
 #if __has_include("elements/kernel_dispatch.hpp")
@@ -43,16 +42,11 @@ int main(int argc, char** argv) {
   const std::filesystem::path folder = argv[1];
   const int repeats = argc > 2 ? std::max(1, std::atoi(argv[2])) : 9;
   const int max_threads = argc > 3 ? std::clamp(std::atoi(argv[3]), 1, 2) : 2;
-  const CheckpointData data = read_checkpoint(folder / app::kCheckpointFile);
-  const double scale = data.scalar("run.mesh_scale");
-  const app::BuiltCase built =
-      app::build_case(data.text("case.file"), std::isnan(scale) ? std::nullopt : std::optional<double>(scale));
-  if (!built.hinge) {
-    std::cerr << "bench_assembly_kernel: a generated hinge-zone case is expected\n";
-    return 2;
-  }
-  ShellModel model = built.hinge->zone.model;
-  app::restore_geometry(model, data);
+  const std::optional<bench::CheckpointModel> loaded = bench::load_checkpoint_model(folder, "bench_assembly_kernel");
+  if (!loaded) return 2;
+  const CheckpointData& data = loaded->data;
+  const app::BuiltCase& built = loaded->built;
+  const ShellModel& model = loaded->model;
   const SectionAssignment sections = SectionAssignment::for_steel(model, built.input.steel, built.input.layers, false);
   long layer_points = 0;
   for (int e = 0; e < model.element_count(); ++e) layer_points += 4L * sections.of(e).layers();
@@ -70,11 +64,7 @@ int main(int argc, char** argv) {
     ShellProblemOptions options;
     options.threads = threads;
     ShellProblem problem(model, sections, options);
-    if (built.hinge->zone.axial_force > 0.0) {
-      problem.set_fixed_load(load_vector(model, model.fixed_loads));
-      problem.set_reference_load(reference_load_vector(model));
-    }
-    app::restore_path_run(problem, data);
+    bench::restore_checkpoint_state(problem, *loaded);
     Eigen::VectorXd f;
     std::vector<double> tangent, residual;
     for (int r = 0; r < repeats; ++r) {

@@ -3,8 +3,7 @@
 // the bare factorisations of that matrix (CHOLMOD supernodal LL^T, tried even when it fails, and our
 // supernodal LDL^T) and one solve with each factor: medians of REPEATS. Prints one JSON object.
 // Usage: bench_solver_floor RESULTS_DIR [REPEATS] (run with OPENBLAS_NUM_THREADS=1, as the program).
-#include "app/model_builder.hpp"
-#include "app/run_checkpoint.hpp"
+#include "bench/checkpoint_model.hpp"
 #include "solver/cholmod_factor.hpp"
 #include "solver/nonlinear/shell_problem.hpp"
 #include "solver/section_assignment.hpp"
@@ -43,26 +42,18 @@ int main(int argc, char** argv) {
   }
   const std::filesystem::path folder = argv[1];
   const int repeats = argc > 2 ? std::max(1, std::atoi(argv[2])) : 5;
-  const CheckpointData data = read_checkpoint(folder / app::kCheckpointFile);
-  const double scale = data.scalar("run.mesh_scale");
-  const app::BuiltCase built = app::build_case(data.text("case.file"), std::isnan(scale) ? std::nullopt : std::optional<double>(scale));
-  if (!built.hinge) {
-    std::cerr << "bench_solver_floor: a generated hinge-zone case is expected\n";
-    return 2;
-  }
-  ShellModel model = built.hinge->zone.model;
-  app::restore_geometry(model, data);
-  const SectionAssignment sections = SectionAssignment::for_steel(model, built.input.steel, built.input.layers, false);
+  const std::optional<bench::CheckpointModel> loaded = bench::load_checkpoint_model(folder, "bench_solver_floor");
+  if (!loaded) return 2;
+  const CheckpointData& data = loaded->data;
+  const ShellModel& model = loaded->model;
+  const SectionAssignment sections =
+      SectionAssignment::for_steel(model, loaded->built.input.steel, loaded->built.input.layers, false);
   ShellProblem problem(model, sections, {});
-  if (built.hinge->zone.axial_force > 0.0) {
-    problem.set_fixed_load(load_vector(model, model.fixed_loads));
-    problem.set_reference_load(reference_load_vector(model));
-  }
   const auto assemble = [&] {
     Eigen::VectorXd f;
     problem.evaluate(f, true);
   };
-  const double with_assembly = median_seconds(1, [&] { app::restore_path_run(problem, data); });
+  const double with_assembly = median_seconds(1, [&] { bench::restore_checkpoint_state(problem, *loaded); });
   const std::vector<double> values = problem.tangent_values();  // the path's own tangent at that step
   const double evaluate_s = median_seconds(repeats, assemble);    // assembly + factorisation
   CholmodFactor llt(problem.pattern(), CholmodFactor::Method::SupernodalLLT);

@@ -299,7 +299,9 @@ void expect_tangent_matches_central_differences(int substeps) {
   std::printf("tangent (%d substeps): %d plastic states checked against central differences\n", substeps, checked);
   EXPECT_GE(checked, 30);
   // The substep chain must really be tested: its derivative is unsymmetric at these large steps.
-  if (substeps > 1) EXPECT_GT(asymmetry, 10.0);
+  if (substeps > 1) {
+    EXPECT_GT(asymmetry, 10.0);
+  }
 }
 
 TEST(J2PlaneStress, ConsistentTangentMatchesCentralDifferences) { expect_tangent_matches_central_differences(1); }
