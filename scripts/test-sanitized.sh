@@ -32,7 +32,7 @@ fi
 long="HingeMeshConvergence|cli\.demo$|Determinism\.|SignalStop\.|HingeDemand\.|HingeLocalBuckling\."
 long+="|HingePlasticMoment\.|FittedHingeLaw\.|HingeLaws\.SlenderFlange|HingedRoofVerification\."
 long+="|SlitAnnularPlateVerification\.|HemisphereVerification\.|ReportPage\.|ReportPdf\.|CurvePlot\."
-long+="|Resume\.|ResumeExtension\.|Sweep\.|Study\.|batch\.mpi_sweep"  # runs of many cases or kill trials
+long+="|Resume\.|ResumeExtension\.|Sweep\.|Study\.|batch\.mpi_sweep|HingeStepRule\."  # many cases, kill trials, 300 steps
 exclude="${ROTCAP_SANITIZE_EXCLUDE:-$long}"
 export OPENBLAS_NUM_THREADS=1 OMP_NUM_THREADS=1
 export UBSAN_OPTIONS="print_stacktrace=1:halt_on_error=1${UBSAN_OPTIONS:+:$UBSAN_OPTIONS}"
