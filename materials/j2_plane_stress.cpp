@@ -14,6 +14,12 @@ namespace {
 
 const double kSqrt2of3 = std::sqrt(2.0 / 3.0);
 
+/// sigma^T P sigma = A + B of return_once() (= 2/3 sigma_vm^2), one expression for every elastic test.
+double yield_measure(const Eigen::Vector3d& s) {
+  const double sum = s(0) + s(1), diff = s(0) - s(1);
+  return sum * sum / 6.0 + (0.5 * diff * diff + 2.0 * s(2) * s(2));
+}
+
 }  // namespace
 
 J2PlaneStress::J2PlaneStress(double E, double nu, HardeningCurve curve, const Options& options)
@@ -50,17 +56,22 @@ Eigen::Vector3d J2PlaneStress::stress(const Eigen::Vector3d& strain,
 ReturnStatus J2PlaneStress::update(const Eigen::Vector3d& strain, const LayerState& committed,
                                    LayerState& trial, Eigen::Vector3d& stress,
                                    Eigen::Matrix3d* tangent) const {
-  if (options_.substeps > 1) {
-    const Eigen::Vector3d s_tr = this->stress(strain, committed);
-    const double ep_n = committed.equivalent_plastic_strain;
-    if (s_tr.allFinite() && ep_n >= 0.0 && std::isfinite(ep_n)) {
-      const double s_y = curve_.evaluate(ep_n).stress;
-      if (1.5 * s_tr.dot(Eigen::Vector3d(2.0 / 3.0 * s_tr(0) - s_tr(1) / 3.0, 2.0 / 3.0 * s_tr(1) - s_tr(0) / 3.0,
-                                         2.0 * s_tr(2))) > s_y * s_y)
-        return substepped(strain, committed, trial, stress, tangent);
-    }
+  // The elastic test once here for every point (most are elastic); return_once() repeats it for
+  // each substep and handles bad input (a status, never a throw).
+  const Eigen::Vector3d s_tr = this->stress(strain, committed);
+  const double ep_n = committed.equivalent_plastic_strain;
+  if (!s_tr.allFinite() || !(ep_n >= 0.0) || !std::isfinite(ep_n))
+    return return_once(strain, committed, trial, stress, tangent, nullptr);
+  const double s_y = curve_.evaluate(ep_n).stress;
+  if (1.5 * yield_measure(s_tr) <= s_y * s_y) {
+    trial = committed;
+    trial.strain = strain;
+    stress = s_tr;
+    if (tangent) *tangent = C_;
+    return ReturnStatus::Elastic;
   }
-  return return_once(strain, committed, trial, stress, tangent, nullptr);
+  return options_.substeps > 1 ? substepped(strain, committed, trial, stress, tangent)
+                               : return_once(strain, committed, trial, stress, tangent, nullptr);
 }
 
 ReturnStatus J2PlaneStress::substepped(const Eigen::Vector3d& strain, const LayerState& committed,
@@ -124,8 +135,8 @@ ReturnStatus J2PlaneStress::return_once(const Eigen::Vector3d& strain, const Lay
   const double diff = s_tr(0) - s_tr(1);
   const double A = sum * sum / 6.0;
   const double B = 0.5 * diff * diff + 2.0 * s_tr(2) * s_tr(2);
-  // Elastic fast path: f_trial = 1/2 (A + B) - 1/3 sigma_y^2 <= 0.
-  if (1.5 * (A + B) <= y_n.stress * y_n.stress) return ReturnStatus::Elastic;
+  // Elastic: f_trial = 1/2 (A + B) - 1/3 sigma_y^2 <= 0 (A + B = yield_measure(s_tr)).
+  if (1.5 * yield_measure(s_tr) <= y_n.stress * y_n.stress) return ReturnStatus::Elastic;
 
   // Eigenvalues of C P: a = E / (3 (1 - nu)) for the sum mode, 2G for the other two.
   const double a = E_ / (3.0 * (1.0 - nu_));

@@ -131,12 +131,11 @@ void PathFollower::start_curve_rule(double elastic_value) {
   state_.curve_elastic_value = elastic_value;
 }
 
-double PathFollower::curve_next_size(const ConvergedStep& record, const Eigen::VectorXd& previous_increment,
-                                     double size) const {
+double PathFollower::curve_next_size(const ConvergedStep& record, double size) const {
   const CurveChord now = curve_rule_->chord(Du_, record.load_factor_increment);
-  CurveChord before;
-  if (previous_increment.size() == Du_.size())
-    before = curve_rule_->chord(previous_increment, state_.previous_load_factor_increment);
+  CurveChord before;  // Du_prev_ and state_ still hold the step before this one
+  if (Du_prev_.size() == Du_.size())
+    before = curve_rule_->chord(Du_prev_, state_.previous_load_factor_increment);
   double factor = curve_rule_->size_factor(now, before);
   // Safety of the iteration rule: a step that needed more than twice the target iterations shrinks.
   const int target = options_.target_iterations;
@@ -247,7 +246,7 @@ PathSummary PathFollower::follow(const Observer& observer, PathSummary summary) 
     lambda_ += record.load_factor_increment;
     u_total_ += Du_;
     // --- adapt the step size (before the observer, so that state() is whole)
-    size = curve_rule_ ? curve_next_size(record, Du_prev_, size) : next_size(record.iterations, size);
+    size = curve_rule_ ? curve_next_size(record, size) : next_size(record.iterations, size);
     Du_prev_ = Du_;
     record.load_factor = lambda_;
     record.cutbacks = cutbacks;

@@ -116,7 +116,8 @@ class PathFollower {
   bool converged(double r_norm, double du_norm, double Du_norm) const;
   PathSummary follow(const Observer& observer, PathSummary summary);
   double next_size(int iterations, double size) const;
-  double curve_next_size(const ConvergedStep& record, const Eigen::VectorXd& previous_increment, double size) const;
+  /// Called after commit, before Du_prev_ and state_ take this step's values.
+  double curve_next_size(const ConvergedStep& record, double size) const;
   void start_curve_rule(double elastic_value);
 
   EquilibriumProblem& problem_;
