@@ -102,7 +102,8 @@ nlohmann::json solver_summary(const PathSummary& ps, const ShellProblem& problem
 int finish_path(const PathSummary& ps, const std::string& stop_reason, double wall) {
   log_info("stopped: " + stop_reason + " (" + ps.message + "); " + std::to_string(ps.steps) + " steps, " +
            std::to_string(ps.iterations) + " iterations, " + std::to_string(ps.cutbacks) + " cut-backs, " +
-           std::to_string(wall) + " s");
+           std::to_string(wall) + " s; " + std::to_string(ps.residual_only_evaluations) +
+           " iterates evaluated without tangent (" + std::to_string(ps.repeated_evaluations) + " of them again with it)");
   const bool early = ps.status == PathStatus::StepTooSmall || ps.status == PathStatus::EvaluationFailed ||
                      stop_reason == kInterrupted;
   return early ? kExitStoppedEarly : kExitOk;

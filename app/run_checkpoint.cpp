@@ -23,6 +23,8 @@ CheckpointData checkpoint_of(const RunCheckpoint& run, const ShellProblem& probl
   ShellProblemState s = problem.state();
   d.arrays["problem.translations"] = std::move(s.translations);
   d.arrays["problem.rotations"] = std::move(s.rotations);
+  d.arrays["problem.factored_translations"] = std::move(s.factored_translations);
+  d.arrays["problem.factored_rotations"] = std::move(s.factored_rotations);
   d.arrays["problem.history"] = std::move(s.history);
   d.arrays["problem.history_previous"] = std::move(s.history_previous);
   d.arrays["problem.modes"] = std::move(s.modes);
@@ -98,6 +100,8 @@ std::optional<PathState> restore_path_run(ShellProblem& problem, const Checkpoin
   ShellProblemState s;
   s.translations = data.array("problem.translations");
   s.rotations = data.array("problem.rotations");
+  s.factored_translations = data.array("problem.factored_translations");
+  s.factored_rotations = data.array("problem.factored_rotations");
   s.history = data.array("problem.history");
   s.history_previous = data.array("problem.history_previous");
   s.modes = data.array("problem.modes");

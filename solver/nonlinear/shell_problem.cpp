@@ -47,6 +47,8 @@ ShellProblem::ShellProblem(const ShellModel& model, const SectionAssignment& sec
   u_committed_ = u_;
   R_.assign(n, Eigen::Matrix3d::Identity());
   R_committed_ = R_;
+  u_factored_ = u_;
+  R_factored_ = R_;
   f_ref_ = dofs_.gather(reference_load_vector(model_));
   f_fixed_ = Eigen::VectorXd::Zero(dofs_.free_count());
   find_moment_nodes();
@@ -162,9 +164,19 @@ ElementKernel ShellProblem::kernel(std::vector<ShellQ4Resultants>* out) const {
 }
 
 EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool factorise_tangent) {
+  const EvaluationStatus s = assemble(internal_force, factorise_tangent);
+  return s == EvaluationStatus::Ok && factorise_tangent ? factorise_assembled() : s;
+}
+
+EvaluationStatus ShellProblem::evaluate_deferred(Eigen::VectorXd& internal_force) {
+  return assemble(internal_force, true);
+}
+
+EvaluationStatus ShellProblem::assemble(Eigen::VectorXd& internal_force, bool with_tangent) {
+  assembled_unfactorised_ = false;
   const auto t0 = std::chrono::steady_clock::now();
   const AssemblySummary a =
-      assembler_->assemble(kernel(nullptr), factorise_tangent ? &values_ : nullptr, &f_full_, {options_.threads});
+      assembler_->assemble(kernel(nullptr), with_tangent ? &values_ : nullptr, &f_full_, {options_.threads});
   if (!a.ok) {
     message_ = a.message;
     return EvaluationStatus::ElementFailed;
@@ -175,7 +187,17 @@ EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool fa
     message_ = "internal force is not finite";
     return EvaluationStatus::NotFinite;
   }
-  if (!factorise_tangent) return EvaluationStatus::Ok;
+  assembled_unfactorised_ = with_tangent;
+  return EvaluationStatus::Ok;
+}
+
+EvaluationStatus ShellProblem::factorise_assembled() {
+  if (!assembled_unfactorised_) throw std::logic_error("ShellProblem::factorise_assembled without an assembled tangent");
+  assembled_unfactorised_ = false;
+  return factorise_values();
+}
+
+EvaluationStatus ShellProblem::factorise_values() {
   const auto t1 = std::chrono::steady_clock::now();
   indefinite_before_last_ = indefinite_;
   FactorStatus s = FactorStatus::NotPositiveDefinite;
@@ -202,6 +224,8 @@ EvaluationStatus ShellProblem::evaluate(Eigen::VectorXd& internal_force, bool fa
     return EvaluationStatus::FactorisationFailed;
   }
   prepare_skew_correction();
+  u_factored_ = u_;
+  R_factored_ = R_;
   factor_seconds_ += seconds_since(t1);
   return EvaluationStatus::Ok;
 }

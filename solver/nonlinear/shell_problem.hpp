@@ -55,6 +55,10 @@ struct ShellProblemState {
   std::vector<double> history_previous;  ///< of the state committed before it
   std::vector<double> modes;             ///< incompatible-mode amplitudes, 4 per element
   std::vector<double> modes_previous;
+  /// The configuration of the last factorised tangent (the path follower's predictor tangent): u and
+  /// R as above. Its history was history_previous: the tangent is that of the committed step's
+  /// increment at the corrector iterate before the converged one.
+  std::vector<double> factored_translations, factored_rotations;
   bool indefinite_before_last_evaluation = false;  ///< picks LL^T or LDL^T as the last evaluation did
   bool indefinite = false;                         ///< picks LL^T or LDL^T for the next evaluation
   /// factorisations, indefinite factorisations, factorisation s, assembly s, indefinite factorisation s
@@ -81,6 +85,8 @@ class ShellProblem final : public EquilibriumProblem {
   const Eigen::VectorXd& fixed_load() const override { return f_fixed_; }
   const Eigen::VectorXd& arc_length_weights() const override { return weights_; }
   EvaluationStatus evaluate(Eigen::VectorXd& internal_force, bool factorise_tangent) override;
+  EvaluationStatus evaluate_deferred(Eigen::VectorXd& internal_force) override;
+  EvaluationStatus factorise_assembled() override;
   void solve(const Eigen::VectorXd& rhs, Eigen::VectorXd& x) override;
   int negative_pivots() const override { return negative_pivots_; }
   void update(const Eigen::VectorXd& du) override;
@@ -100,9 +106,9 @@ class ShellProblem final : public EquilibriumProblem {
   /// The committed state (after commit(); see ShellProblemState).
   ShellProblemState state() const;
   /// Makes `state` the committed state of this problem (same model and sections) and factorises the
-  /// tangent the path follower had factorised there: the last corrector evaluation, at the state's
-  /// configuration from the previous history. The history that evaluation gives must equal the
-  /// stored one bit for bit; otherwise (another build, thread count or BLAS) it returns the largest
+  /// tangent the path follower had factorised there: the evaluation at the state's factored
+  /// configuration from the previous history; then evaluates the residual at the state's
+  /// configuration from the previous history, whose history must equal the stored one bit for bit; otherwise (another build, thread count or BLAS) it returns the largest
   /// relative difference found, and the problem holds the stored state with the re-evaluated
   /// tangent. Returns 0 on an exact reproduction. Throws std::invalid_argument on sizes that do not
   /// fit the model, std::runtime_error when the evaluation fails.
@@ -150,12 +156,18 @@ class ShellProblem final : public EquilibriumProblem {
   std::unique_ptr<CholmodFactor> llt_, ldlt_;
   CholmodFactor* active_ = nullptr;
   bool indefinite_ = false;
-  bool indefinite_before_last_ = false;  // indefinite_ when the last factorising evaluate() began
+  bool indefinite_before_last_ = false;  // indefinite_ when the last factorisation began
+  bool assembled_unfactorised_ = false;  // evaluate_deferred() left values_ for factorise_assembled()
+  // Assembles f_int (and the tangent into values_), trial history from the committed one.
+  EvaluationStatus assemble(Eigen::VectorXd& internal_force, bool with_tangent);
+  EvaluationStatus factorise_values();   // factorises values_ (LL^T or LDL^T), sets the factored configuration
   int negative_pivots_ = 0;
   std::string message_;
   // State: trial and committed.
   std::vector<Eigen::Vector3d> u_, u_committed_;
   std::vector<Eigen::Matrix3d> R_, R_committed_;
+  std::vector<Eigen::Vector3d> u_factored_;  // the configuration of the last factorised tangent
+  std::vector<Eigen::Matrix3d> R_factored_;
   std::vector<std::size_t> history_offset_;
   std::vector<LayerState> history_committed_, history_previous_;
   mutable std::vector<LayerState> history_trial_;

@@ -65,6 +65,10 @@ ShellProblemState ShellProblem::state() const {
   ShellProblemState s;
   for (const Eigen::Vector3d& u : u_committed_) s.translations.insert(s.translations.end(), u.data(), u.data() + 3);
   for (const Eigen::Matrix3d& R : R_committed_) s.rotations.insert(s.rotations.end(), R.data(), R.data() + 9);
+  for (const Eigen::Vector3d& u : u_factored_)
+    s.factored_translations.insert(s.factored_translations.end(), u.data(), u.data() + 3);
+  for (const Eigen::Matrix3d& R : R_factored_)
+    s.factored_rotations.insert(s.factored_rotations.end(), R.data(), R.data() + 9);
   append_history(history_committed_, s.history);
   append_history(history_previous_, s.history_previous);
   append_modes(alpha_committed_, s.modes);
@@ -78,28 +82,37 @@ ShellProblemState ShellProblem::state() const {
 
 double ShellProblem::restore(const ShellProblemState& s, bool reevaluate) {
   const std::size_t nodes = u_.size();
-  if (s.translations.size() != 3 * nodes || s.rotations.size() != 9 * nodes || s.statistics.size() != 5)
+  if (s.translations.size() != 3 * nodes || s.rotations.size() != 9 * nodes || s.statistics.size() != 5 ||
+      (reevaluate && (s.factored_translations.size() != 3 * nodes || s.factored_rotations.size() != 9 * nodes)))
     throw std::invalid_argument("ShellProblem::restore: the state is of another model (" +
                                 std::to_string(s.translations.size() / 3) + " nodes, the model has " +
                                 std::to_string(nodes) + ")");
-  for (std::size_t n = 0; n < nodes; ++n) {
-    u_[n] = Eigen::Vector3d(s.translations.data() + 3 * n);
-    R_[n] = Eigen::Matrix3d(s.rotations.data() + 9 * n);
-  }
+  auto place = [&](const std::vector<double>& translations, const std::vector<double>& rotations) {
+    for (std::size_t n = 0; n < nodes; ++n) {
+      u_[n] = Eigen::Vector3d(translations.data() + 3 * n);
+      R_[n] = Eigen::Matrix3d(rotations.data() + 9 * n);
+    }
+  };
   double difference = 0.0;
   if (reevaluate) {
-    // The last corrector evaluation: the configuration of the state, the history before it.
+    // The path follower's last factorisation (its factored configuration, the history before the
+    // step), then the converged evaluation (the state's configuration, the same history).
     read_history(s.history_previous, history_committed_, "history_previous");
     read_modes(s.modes_previous, alpha_committed_, "modes_previous");
     history_trial_ = history_committed_;
     alpha_trial_ = alpha_committed_;
     indefinite_ = s.indefinite_before_last_evaluation;
+    place(s.factored_translations, s.factored_rotations);
     Eigen::VectorXd f;
     if (evaluate(f, true) != EvaluationStatus::Ok)
       throw std::runtime_error("ShellProblem::restore: the tangent at the restored state failed: " + message_);
+    place(s.translations, s.rotations);
+    if (evaluate(f, false) != EvaluationStatus::Ok)
+      throw std::runtime_error("ShellProblem::restore: the evaluation at the restored state failed: " + message_);
     difference = largest_difference(history_trial_, s.history);
     commit();  // the previous history becomes history_previous_
   } else {
+    place(s.translations, s.rotations);
     u_committed_ = u_;
     R_committed_ = R_;
     read_history(s.history_previous, history_previous_, "history_previous");

@@ -58,6 +58,13 @@ bool PathFollower::converged(double r_norm, double du_norm, double Du_norm) cons
          du_norm <= options_.displacement_tolerance * std::max(Du_norm, 1e-300);
 }
 
+bool PathFollower::converging(const std::vector<double>& residual_norms, double du_norm, double Du_norm) const {
+  const std::size_t n = residual_norms.size();
+  if (n < 2 || du_norm > options_.displacement_tolerance * std::max(Du_norm, 1e-300)) return false;
+  const double r1 = residual_norms[n - 1], r0 = residual_norms[n - 2];
+  return r0 > 0.0 && r1 * (r1 / r0) <= options_.force_tolerance * ref_norm_;
+}
+
 bool PathFollower::factorise_at_committed(PathSummary& summary) {
   if (problem_.evaluate(f_int_, true) == EvaluationStatus::Ok) return true;
   summary.status = PathStatus::EvaluationFailed;
@@ -93,12 +100,21 @@ PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constrain
   double Dlambda = dlambda;
   problem_.update(Du_);
   record.residual_norms.clear();
+  record.residual_only_evaluations = record.repeated_evaluations = 0;
   const Eigen::VectorXd& w = problem_.arc_length_weights();
   auto wnorm = [&w](const Eigen::VectorXd& v) { return std::sqrt((v.array().square() * w.array()).sum()); };
   double du_norm = wnorm(Du_);
-  // --- correct: Newton with the full tangent
+  // --- correct: Newton with the full tangent. An iterate is evaluated residual-only when it looks
+  // converged (see converging()); its tangent is assembled but factorised only when the iterate did
+  // not converge: the converged iterate's tangent is never factorised, and the next predictor uses
+  // the tangent of the iterate before it.
   for (int k = 0; k <= options_.max_iterations; ++k) {
-    if (problem_.evaluate(f_int_, true) != EvaluationStatus::Ok) return Attempt::Diverged;
+    const bool residual_only = k > 0 && converging(record.residual_norms, du_norm, wnorm(Du_));
+    EvaluationStatus status = EvaluationStatus::Ok;
+    if (k == 0) status = problem_.evaluate(f_int_, true);
+    else status = residual_only ? problem_.evaluate(f_int_, false) : problem_.evaluate_deferred(f_int_);
+    if (status != EvaluationStatus::Ok) return Attempt::Diverged;
+    if (residual_only) ++record.residual_only_evaluations;
     r_ = f_int_ - problem_.fixed_load() - (lambda_ + Dlambda) * f_ref;
     const double r_norm = r_.norm();
     if (!std::isfinite(r_norm)) return Attempt::Diverged;
@@ -109,6 +125,11 @@ PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constrain
       return Attempt::Converged;
     }
     if (k == options_.max_iterations) break;
+    if (k > 0) {
+      if (residual_only) ++record.repeated_evaluations;
+      status = residual_only ? problem_.evaluate(f_int_, true) : problem_.factorise_assembled();
+      if (status != EvaluationStatus::Ok) return Attempt::Diverged;
+    }
     problem_.solve(-r_, du_r_);
     problem_.solve(f_ref, du_f_);
     double delta_lambda = 0.0;
@@ -253,12 +274,15 @@ PathSummary PathFollower::follow(const Observer& observer, PathSummary summary) 
     cutbacks = 0;
     ++summary.steps;
     summary.iterations += record.iterations;
+    summary.residual_only_evaluations += record.residual_only_evaluations;
+    summary.repeated_evaluations += record.repeated_evaluations;
     summary.load_factor = lambda_;
-    // The corrector's last evaluation was at this state, with the consistent tangent of the converged
-    // increment factorised: it is the next predictor's tangent and gives the inertia count.
-    // Re-evaluating at the committed history instead would give the elastic stiffness at every point
-    // that sits on its yield surface (a trial stress exactly on the surface is elastic), which hid
-    // the negative pivots past a peak and cost one assembly and factorisation per step.
+    // The last factorised tangent is the consistent tangent of the converged increment at the
+    // iterate before the converged one: it is the next predictor's tangent and gives the inertia
+    // count. Re-evaluating at the committed history instead would give the elastic stiffness at
+    // every point that sits on its yield surface (a trial stress exactly on the surface is
+    // elastic), which hid the negative pivots past a peak and cost one assembly and factorisation
+    // per step.
     record.negative_pivots = problem_.negative_pivots();
     state_.load_factor = lambda_;
     state_.previous_load_factor_increment = record.load_factor_increment;

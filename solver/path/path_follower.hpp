@@ -2,8 +2,11 @@
 // PathFollower: incremental-iterative solution of an EquilibriumProblem along its load path, with a
 // StepConstraint deciding the load factor (load, displacement or arc-length control).
 //
-// Each step: predict (tangent at the committed state, dlambda from the constraint), correct (Newton
-// with the full tangent, two solves per iteration), and on convergence commit and adapt the step size,
+// Each step: predict (the last factorised tangent: after a converged step, that of its iterate before
+// the converged one; at the start and after a cut-back, the tangent at the committed state; dlambda
+// from the constraint), correct (Newton with the full tangent, two solves per iteration; an iterate
+// that looks converged is evaluated without its tangent, and the converged iterate's tangent is
+// never factorised), and on convergence commit and adapt the step size,
 // either (step_rule = curve, with a monitored quantity set) to the shape of the monitored curve
 // (CurveStepRule, solver/path/curve_step_rule.hpp), or (step_rule = iterations) to the iteration
 // count I against target_iterations T: x2 for I <= T/2, x1.25 for I <= T, kept for
@@ -63,7 +66,9 @@ struct ConvergedStep {
   double load_factor_increment = 0.0;
   int iterations = 0;                 ///< Newton corrections of the accepted attempt
   int cutbacks = 0;                   ///< failed attempts before it
-  int negative_pivots = 0;            ///< of the tangent at the converged state (its last corrector evaluation)
+  int negative_pivots = 0;            ///< of the last factorised tangent: the corrector iterate before the converged one
+  int residual_only_evaluations = 0;  ///< iterates of the accepted attempt evaluated without tangent (converging())
+  int repeated_evaluations = 0;       ///< of those, not converged after all: evaluated again with the tangent
   double step_size = 0.0;             ///< in the constraint's measure
   std::vector<double> residual_norms; ///< |r| at each evaluation of the accepted attempt
 };
@@ -75,6 +80,9 @@ struct PathSummary {
   int iterations = 0;
   int cutbacks = 0;
   double load_factor = 0.0;
+  /// Sums of ConvergedStep's counts over the steps of this call (not carried over a resume).
+  int residual_only_evaluations = 0;
+  int repeated_evaluations = 0;
 };
 
 /// Where a path stands after a converged step, with the step size chosen for the next one: enough,
@@ -114,6 +122,10 @@ class PathFollower {
   double landing_size(double size, bool& lands) const;
   Attempt attempt_step(const StepConstraint& constraint, double size, ConvergedStep& record);
   bool converged(double r_norm, double du_norm, double Du_norm) const;
+  /// Whether the next iterate will likely converge: the last correction already meets the
+  /// displacement test and the residual, extrapolated at the last ratio r_k^2 / r_(k-1) (conservative
+  /// under quadratic convergence), meets the force test.
+  bool converging(const std::vector<double>& residual_norms, double du_norm, double Du_norm) const;
   PathSummary follow(const Observer& observer, PathSummary summary);
   double next_size(int iterations, double size) const;
   /// Called after commit, before Du_prev_ and state_ take this step's values.

@@ -4,6 +4,7 @@
 
 #include <Eigen/Dense>
 #include <functional>
+#include <stdexcept>
 
 namespace rotcap::testing {
 
@@ -24,14 +25,18 @@ class DenseProblem final : public EquilibriumProblem {
   const Eigen::VectorXd& fixed_load() const override { return fixed_; }
   const Eigen::VectorXd& arc_length_weights() const override { return w_; }
   EvaluationStatus evaluate(Eigen::VectorXd& f, bool factorise) override {
-    ++evaluations;
-    f = f_(u_);
-    if (factorise) {
-      ldlt_.compute(k_(u_));
-      // Sylvester's law of inertia: P^T K P = L D L^T is a congruence, so D's signs are K's.
-      negative_ = static_cast<int>((ldlt_.vectorD().array() < 0.0).count());
-    }
-    return f.allFinite() ? EvaluationStatus::Ok : EvaluationStatus::NotFinite;
+    const EvaluationStatus s = factorise ? evaluate_deferred(f) : assemble(f, false);
+    return s == EvaluationStatus::Ok && factorise ? factorise_assembled() : s;
+  }
+  EvaluationStatus evaluate_deferred(Eigen::VectorXd& f) override { return assemble(f, true); }
+  EvaluationStatus factorise_assembled() override {
+    if (!assembled_) throw std::logic_error("DenseProblem::factorise_assembled without a tangent");
+    assembled_ = false;
+    ++factorisations;
+    ldlt_.compute(tangent_);
+    // Sylvester's law of inertia: P^T K P = L D L^T is a congruence, so D's signs are K's.
+    negative_ = static_cast<int>((ldlt_.vectorD().array() < 0.0).count());
+    return EvaluationStatus::Ok;
   }
   void solve(const Eigen::VectorXd& rhs, Eigen::VectorXd& x) override { x = ldlt_.solve(rhs); }
   int negative_pivots() const override { return negative_; }
@@ -39,9 +44,19 @@ class DenseProblem final : public EquilibriumProblem {
   void commit() override { committed_ = u_; }
   void revert() override { u_ = committed_; }
   const Eigen::VectorXd& state() const { return committed_; }
-  int evaluations = 0;
+  int evaluations = 0;     ///< of f_int (with or without tangent)
+  int factorisations = 0;  ///< of the tangent
 
  private:
+  EvaluationStatus assemble(Eigen::VectorXd& f, bool with_tangent) {
+    ++evaluations;
+    f = f_(u_);
+    assembled_ = with_tangent;
+    if (with_tangent) tangent_ = k_(u_);
+    return f.allFinite() ? EvaluationStatus::Ok : EvaluationStatus::NotFinite;
+  }
+  Eigen::MatrixXd tangent_;
+  bool assembled_ = false;
   Force f_;
   Jacobian k_;
   Eigen::VectorXd f_ref_, u_, committed_, fixed_, w_;

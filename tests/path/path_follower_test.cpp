@@ -153,6 +153,32 @@ TEST(PathFollower, NewtonConvergesQuadraticallyOnSnapBackPath) {
   EXPECT_GT(checked, 3);
 }
 
+TEST(PathFollower, ConvergedIteratesAreNeverFactorisedAndLikelyOnesSkipTheTangent) {
+  // Each attempt factorises at its predicted state and at every iterate that did not converge; the
+  // converged iterate's tangent is not factorised (the next predictor uses the one before it), so
+  // a path without cut-backs costs 1 (start) + sum of iterations factorisations. (k1 = 2: a load
+  // limit point, no snap-back.)
+  DenseProblem p = snap_back_problem(2.0);
+  ArcLength arc(V::Ones(2), ArcLength::Form::Cylindrical);
+  PathOptions o;
+  o.first_step = 0.1;
+  o.force_tolerance = 1e-10;
+  o.displacement_tolerance = 1e-8;
+  PathFollower follower(p, arc, o);
+  const PathSummary s = follower.run([&](const ConvergedStep& step) {
+    EXPECT_LE(step.repeated_evaluations, step.residual_only_evaluations);
+    return step.step < 20;
+  });
+  ASSERT_EQ(s.cutbacks, 0) << "the count below holds for paths without cut-backs";
+  EXPECT_EQ(p.factorisations, 1 + s.iterations);
+  EXPECT_EQ(p.evaluations, 1 + s.steps + s.iterations + s.repeated_evaluations);
+  // Newton converges quadratically here: most converged iterates were foreseen.
+  EXPECT_GE(s.residual_only_evaluations, s.steps / 2);
+  std::cout << s.steps << " steps, " << s.iterations << " iterations, " << p.factorisations << " factorisations, "
+            << s.residual_only_evaluations << " residual-only evaluations (" << s.repeated_evaluations
+            << " repeated)\n";
+}
+
 TEST(PathFollower, TooLargeFirstStepIsCutBackAndSucceeds) {
   // Stiffening spring f = u + u^5: a first step of lambda = 50 does not converge in 4 iterations.
   DenseProblem p([](const V& u) { return V(u.array() + u.array().pow(5)); },
