@@ -16,10 +16,17 @@
 // as CHOLMOD's simplicial LDL^T, whose results it reproduces: tests/solver/cholmod_factor_test.cpp).
 // Used through CholmodFactor (Method::SupernodalLDLT), which reads the pivots for the inertia.
 //
+// Two threads (when OpenMP gives two): the supernodes are split into two groups of independent
+// subtrees and the top above them (subtree_split.hpp); the groups are factorised at once, group 1
+// subtracting its updates of top blocks into a buffer that is added to them after both, then the
+// top in order. The arithmetic is the same with one thread or two (the groups are done one after
+// the other), so the factor is bit-identical for any thread count.
+//
 // Storage: the block of supernode k is column-major at x[px[k]], leading dimension nsrow_k; its
 // diagonal holds d_j, its strict lower part L. Values enter as the upper triangle of A in the
 // pattern's column order (original numbering), the same input as CholmodFactor.
-// No allocation in factorize() or solve() after construction. Not thread-safe (workspaces).
+// No allocation in factorize() or solve() after construction. Not thread-safe (workspaces):
+// call from outside OpenMP parallel regions.
 
 #include <Eigen/Core>
 
@@ -58,6 +65,9 @@ class SupernodalLdlt {
   double pivot(int j) const { return x_[diagonal_offset_[j]]; }
   /// P: row j of P A P^T is row permutation()[j] of A.
   const std::vector<int>& permutation() const { return sym_.perm; }
+  static constexpr int kPanel = 64;  ///< panel width of the dense diagonal LDL^T
+  /// Estimated two-thread time over one-thread time of factorize() (SubtreeSplit::two_thread_ratio).
+  double two_thread_ratio() const { return two_thread_ratio_; }
 
  private:
   // Supernode k: columns first .. first + cols - 1, a dense column-major block of rows x cols at data
@@ -70,6 +80,19 @@ class SupernodalLdlt {
     const int first = sym_.super[k], cols = sym_.super[k + 1] - first, rows = sym_.pi[k + 1] - sym_.pi[k];
     return {first, cols, rows, rows - cols, x_.data() + sym_.px[k]};
   }
+  struct Workspace {
+    std::vector<int> row_map;        // row -> position in a target's row list
+    Eigen::MatrixXd x, c;            // X (m x nscol) and C (m x m), largest sizes
+    Eigen::MatrixXd panel;           // L21 D1 of a diagonal block's panel (cols x kPanel)
+    Eigen::VectorXd t;
+  };
+  // Factorises supernode k and subtracts its update from its ancestors (top ones into top_buffer_
+  // when to_buffer); false on a zero pivot (failed column in `failed`). parallel: its dense kernels
+  // on the OpenMP team (the top; the same arithmetic as without).
+  bool factor_supernode(int k, Workspace& w, bool to_buffer, bool parallel, int& failed);
+  // L11 D1 L11^T = A11 of a block (nscol x nscol at data, leading dimension ld, lower triangle),
+  // right-looking by panels of kPanel columns; false on a zero pivot (its column in `failed`).
+  static bool diagonal_ldlt(double* data, int nscol, int ld, Workspace& w, bool parallel, int& failed);
 
   int n_ = 0;
   Symbolic sym_;
@@ -78,8 +101,12 @@ class SupernodalLdlt {
   std::vector<int> value_offset_;   // pattern entry -> its place in x_
   std::vector<int> diagonal_offset_;// permuted column -> place of d_j in x_
   std::vector<double> x_;           // numeric blocks
-  std::vector<int> row_map_;        // workspace: row -> position in a target's row list
-  Eigen::MatrixXd work_x_, work_c_; // workspaces: X (m x nscol) and C (m x m), largest sizes
+  Workspace work_[2];               // one per group
+  std::vector<int> group_[2], top_; // supernodes of each group and of the top, ascending
+  std::vector<int> owner_;          // supernode -> 0, 1 or -1 (top)
+  std::vector<std::ptrdiff_t> buffer_offset_;  // top supernode -> its block in top_buffer_
+  std::vector<double> top_buffer_;  // group 1's updates of the top blocks
+  double two_thread_ratio_ = 1.0;
   Eigen::VectorXd work_y_, work_t_; // solve workspaces
   bool factorized_ = false;
   int failed_column_ = -1;

@@ -66,6 +66,7 @@ bool PathFollower::converging(const std::vector<double>& residual_norms, double 
 }
 
 bool PathFollower::factorise_at_committed(PathSummary& summary) {
+  du_f_current_ = false;
   if (problem_.evaluate(f_int_, true) == EvaluationStatus::Ok) return true;
   summary.status = PathStatus::EvaluationFailed;
   summary.message = "tangent at the converged state failed: " + problem_.last_message();
@@ -93,7 +94,8 @@ PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constrain
   // evaluation of the previous step, or a fresh evaluation at the start and after a revert)
   const Eigen::VectorXd& f_ref = problem_.reference_load();
   const double s = std::abs(size);
-  problem_.solve(f_ref, du_f_);
+  if (!du_f_current_) problem_.solve(f_ref, du_f_);
+  du_f_current_ = true;
   double dlambda = constraint.predict(du_f_, size, Du_prev_);
   if (!std::isfinite(dlambda)) return Attempt::Diverged;
   Du_ = dlambda * du_f_;
@@ -111,6 +113,7 @@ PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constrain
   for (int k = 0; k <= options_.max_iterations; ++k) {
     const bool residual_only = k > 0 && converging(record.residual_norms, du_norm, wnorm(Du_));
     EvaluationStatus status = EvaluationStatus::Ok;
+    if (k == 0) du_f_current_ = false;
     if (k == 0) status = problem_.evaluate(f_int_, true);
     else status = residual_only ? problem_.evaluate(f_int_, false) : problem_.evaluate_deferred(f_int_);
     if (status != EvaluationStatus::Ok) return Attempt::Diverged;
@@ -127,11 +130,13 @@ PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constrain
     if (k == options_.max_iterations) break;
     if (k > 0) {
       if (residual_only) ++record.repeated_evaluations;
+      du_f_current_ = false;
       status = residual_only ? problem_.evaluate(f_int_, true) : problem_.factorise_assembled();
       if (status != EvaluationStatus::Ok) return Attempt::Diverged;
     }
     problem_.solve(-r_, du_r_);
     problem_.solve(f_ref, du_f_);
+    du_f_current_ = true;
     double delta_lambda = 0.0;
     if (!constraint.correct(du_r_, du_f_, Du_, s, delta_lambda)) return Attempt::Diverged;
     du_ = du_r_ + delta_lambda * du_f_;
@@ -183,6 +188,7 @@ PathSummary PathFollower::run(const Observer& observer, double lambda0) {
   Du_prev_.resize(0);
   if (!factorise_at_committed(summary)) return summary;
   problem_.solve(problem_.reference_load(), du_f_);
+  du_f_current_ = true;
   state_ = PathState{};
   state_.first_size = options_.first_step * constraint_.measure_of(du_f_);
   state_.next_size = state_.first_size;

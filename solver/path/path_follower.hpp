@@ -142,6 +142,7 @@ class PathFollower {
   std::optional<CurveStepRule> curve_rule_;
   // Work vectors, sized once.
   Eigen::VectorXd f_int_, r_, du_r_, du_f_, du_, Du_, Du_prev_, u_total_;
+  bool du_f_current_ = false;  // du_f_ = K^-1 f_ref with the tangent solve() applies now
 };
 
 }  // namespace rotcap
