@@ -148,6 +148,7 @@ CholmodFactor::CholmodFactor(const SparsePattern& pattern, const Options& option
     SupernodalLdlt::Symbolic sym{copy(l->super, ns + 1), copy(l->pi, ns + 1), copy(l->px, ns + 1), {}, copy(l->Perm, l->n)};
     sym.s = copy(l->s, static_cast<std::size_t>(sym.pi.back()));
     impl_->ldlt = std::make_unique<SupernodalLdlt>(pattern.column_starts(), pattern.row_indices(), std::move(sym));
+    impl_->ldlt->set_threads(options.threads);
   }
   factor_nonzeros_ = c.lnz;
   factor_flops_ = c.fl;

@@ -51,6 +51,7 @@ class CholmodFactor {
   struct Options {
     Method method = Method::SupernodalLLT;
     Ordering ordering = Ordering::Automatic;
+    int threads = 0;  ///< SupernodalLDLT: threads of a factorisation, at most 2 used (0: the OpenMP default)
   };
 
   /// Analyses the pattern (ordering + symbolic factorisation). The pattern must outlive this

@@ -170,7 +170,7 @@ bool SupernodalLdlt::diagonal_ldlt(double* data, int nscol, int ld, Workspace& w
     BlockMap W(w.panel.data(), nr, pb);
     for (int j = 0; j < pb; ++j) W.col(j) = B.col(p0 + j).segment(p1, nr) * B(p0 + j, p0 + j);
     const double* l21 = data + p1 + static_cast<std::ptrdiff_t>(p0) * ld;
-#pragma omp parallel for if (parallel) schedule(dynamic, 1)
+#pragma omp parallel for if (parallel) num_threads(team_) schedule(dynamic, 1)
     for (int j0 = 0; j0 < nr; j0 += kUpdateBlock) {
       const int jb = std::min(kUpdateBlock, nr - j0), rows = nr - j0;
       dgemm_("N", "T", &rows, &jb, &pb, &minus_one, l21 + j0, &ld, W.data() + j0, &nr, &one,
@@ -194,7 +194,7 @@ bool SupernodalLdlt::factor_supernode(int k, Workspace& w, bool to_buffer, bool 
   // X = A21 L11^-T (kept in w.x), L21 = X D1^-1, C = L21 X^T.
   double* l21 = B.data() + nscol;  // leading dimension nsrow
   const double one = 1.0, zero = 0.0;
-#pragma omp parallel for if (parallel) schedule(static, 1)
+#pragma omp parallel for if (parallel) num_threads(team_) schedule(static, 1)
   for (int r0 = 0; r0 < m; r0 += kSolveRows) {
     const int rows = std::min(kSolveRows, m - r0);
     dtrsm_("R", "L", "T", "U", &rows, &nscol, &one, B.data(), &nsrow, l21 + r0, &nsrow);
@@ -204,7 +204,7 @@ bool SupernodalLdlt::factor_supernode(int k, Workspace& w, bool to_buffer, bool 
   for (int j = 0; j < nscol; ++j) B.col(j).tail(m) /= B(j, j);
   // Lower triangle of C = L21 X^T (m x m, leading dimension m), by column blocks.
   double* c_data = w.c.data();
-#pragma omp parallel for if (parallel) schedule(dynamic, 1)
+#pragma omp parallel for if (parallel) num_threads(team_) schedule(dynamic, 1)
   for (int j0 = 0; j0 < m; j0 += kUpdateBlock) {
     const int jb = std::min(kUpdateBlock, m - j0), rows = m - j0;
     dgemm_("N", "T", &rows, &jb, &nscol, &one, l21 + j0, &nsrow, X.data() + j0, &m, &zero,
@@ -241,7 +241,8 @@ SupernodalLdlt::Outcome SupernodalLdlt::factorize(std::span<const double> values
   std::fill(top_buffer_.begin(), top_buffer_.end(), 0.0);
   int failed[2] = {-1, -1};
   // The two groups at once (one thread: one after the other, the same arithmetic).
-#pragma omp parallel for num_threads(std::min(2, omp_get_max_threads())) schedule(static, 1)
+  team_ = std::max(1, std::min(2, threads_ > 0 ? threads_ : omp_get_max_threads()));
+#pragma omp parallel for num_threads(team_) schedule(static, 1)
   for (int g = 0; g < 2; ++g)
     for (int k : group_[g])
       if (!factor_supernode(k, work_[g], g == 1, false, failed[g])) break;

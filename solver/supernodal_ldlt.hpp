@@ -66,6 +66,8 @@ class SupernodalLdlt {
   /// P: row j of P A P^T is row permutation()[j] of A.
   const std::vector<int>& permutation() const { return sym_.perm; }
   static constexpr int kPanel = 64;  ///< panel width of the dense diagonal LDL^T
+  /// Threads of factorize(): at most 2 are used; 0 (default) takes the OpenMP default.
+  void set_threads(int threads) { threads_ = threads; }
   /// Estimated two-thread time over one-thread time of factorize() (SubtreeSplit::two_thread_ratio).
   double two_thread_ratio() const { return two_thread_ratio_; }
 
@@ -92,7 +94,7 @@ class SupernodalLdlt {
   bool factor_supernode(int k, Workspace& w, bool to_buffer, bool parallel, int& failed);
   // L11 D1 L11^T = A11 of a block (nscol x nscol at data, leading dimension ld, lower triangle),
   // right-looking by panels of kPanel columns; false on a zero pivot (its column in `failed`).
-  static bool diagonal_ldlt(double* data, int nscol, int ld, Workspace& w, bool parallel, int& failed);
+  bool diagonal_ldlt(double* data, int nscol, int ld, Workspace& w, bool parallel, int& failed);
 
   int n_ = 0;
   Symbolic sym_;
@@ -107,6 +109,8 @@ class SupernodalLdlt {
   std::vector<std::ptrdiff_t> buffer_offset_;  // top supernode -> its block in top_buffer_
   std::vector<double> top_buffer_;  // group 1's updates of the top blocks
   double two_thread_ratio_ = 1.0;
+  int threads_ = 0;
+  int team_ = 1;                    // threads of the factorize() under way
   Eigen::VectorXd work_y_, work_t_; // solve workspaces
   bool factorized_ = false;
   int failed_column_ = -1;

@@ -2,6 +2,8 @@
 
 #include "elements/corotational/rotation.hpp"
 
+#include <omp.h>
+
 #include <chrono>
 #include <stdexcept>
 
@@ -55,7 +57,17 @@ ShellProblem::ShellProblem(const ShellModel& model, const SectionAssignment& sec
   weights_ = Eigen::VectorXd::Zero(dofs_.free_count());
   for (int q = 0; q < dofs_.free_count(); ++q) weights_[q] = (dofs_.dof_of_equation(q) % kDofsPerNode) < 3 ? 1.0 : 0.0;
   f_full_ = Eigen::VectorXd::Zero(model_.dof_count());
-  llt_ = std::make_unique<CholmodFactor>(*pattern_, CholmodFactor::Method::SupernodalLLT);
+  // Two threads: every tangent goes to the supernodal LDL^T, which shares its work between them
+  // (solver/supernodal_ldlt.hpp); one thread: LL^T while the tangent is positive definite.
+  const int threads = options_.threads > 0 ? options_.threads : omp_get_max_threads();
+  if (threads >= 2) ldlt_ = make_ldlt();
+  else llt_ = std::make_unique<CholmodFactor>(*pattern_, CholmodFactor::Method::SupernodalLLT);
+}
+
+std::unique_ptr<CholmodFactor> ShellProblem::make_ldlt() const {
+  return std::make_unique<CholmodFactor>(
+      *pattern_, CholmodFactor::Options{CholmodFactor::Method::SupernodalLDLT, CholmodFactor::Ordering::Automatic,
+                                        options_.threads});
 }
 
 ShellProblem::~ShellProblem() = default;
@@ -201,14 +213,14 @@ EvaluationStatus ShellProblem::factorise_values() {
   const auto t1 = std::chrono::steady_clock::now();
   indefinite_before_last_ = indefinite_;
   FactorStatus s = FactorStatus::NotPositiveDefinite;
-  if (!indefinite_) {
+  if (!indefinite_ && llt_) {
     s = llt_->factorize(values_);
     ++factorisations_;
     active_ = llt_.get();
     negative_pivots_ = 0;
   }
   if (s == FactorStatus::NotPositiveDefinite) {
-    if (!ldlt_) ldlt_ = std::make_unique<CholmodFactor>(*pattern_, CholmodFactor::Method::SupernodalLDLT);
+    if (!ldlt_) ldlt_ = make_ldlt();
     const auto t2 = std::chrono::steady_clock::now();
     s = ldlt_->factorize(values_);
     indefinite_seconds_ += seconds_since(t2);

@@ -17,9 +17,11 @@
 //   (K + E S E^T)^-1 b = y - Z (I + S E^T Z)^-1 S E^T y,  y = K^-1 b, Z = K^-1 E.
 // Without it Newton converges only linearly there (Felippa & Haugen 2005 note that the skew part
 // vanishes at equilibrium only under conservative loads without such moments).
-// Factorisation: supernodal LL^T while the tangent is positive definite; on NotPositiveDefinite
-// the supernodal LDL^T of supernodal_ldlt.hpp (inertia: negative_pivots()), kept while the tangent
-// stays indefinite and retried as LL^T once it had no negative pivot.
+// Factorisation: with two or more threads (ShellProblemOptions::threads, 0: the OpenMP default) the
+// supernodal LDL^T of supernodal_ldlt.hpp for every tangent (inertia: negative_pivots()); it shares
+// its work between two threads and was faster there than CHOLMOD's LL^T, which runs on one. With one
+// thread: supernodal LL^T while the tangent is positive definite; on NotPositiveDefinite the
+// LDL^T, kept while the tangent stays indefinite and retried as LL^T once it had no negative pivot.
 
 #include "elements/corotational/corotational_shell_q4.hpp"
 #include "model/shell_model.hpp"
@@ -153,7 +155,8 @@ class ShellProblem final : public EquilibriumProblem {
   std::unique_ptr<SparsePattern> pattern_;
   std::unique_ptr<Assembler> assembler_;
   std::vector<CorotationalShellQ4> elements_;
-  std::unique_ptr<CholmodFactor> llt_, ldlt_;
+  std::unique_ptr<CholmodFactor> llt_, ldlt_;  // llt_ only on one thread (see the constructor)
+  std::unique_ptr<CholmodFactor> make_ldlt() const;
   CholmodFactor* active_ = nullptr;
   bool indefinite_ = false;
   bool indefinite_before_last_ = false;  // indefinite_ when the last factorisation began
