@@ -8,7 +8,8 @@
 # Usage: bench/before_after.sh OLD_COMMIT [repeats] [case] [rotcap run options...]
 #   defaults: 3 repeats, cases/carpark_girder.toml; options are passed to both `rotcap run`s, e.g.
 #   bench/before_after.sh 1f48710 2 cases/carpark_girder.toml --mesh-scale 0.45
-# Environment: BUILD (the current tree's build folder, default build), KEEP=1 keeps the temporary
+# Environment: BUILD (the current tree's build folder, default build), OLD_BIN (a rotcap binary
+#   already built from OLD_COMMIT: skips the old build), KEEP=1 keeps the temporary
 #   folder with the old worktree, its build and every run's output (default: removed).
 # The old commit is checked out with `git worktree add --detach` into a temporary folder and built
 # there (target rotcap, -j2, nice 5); the worktree is removed on exit, also after an error.
@@ -43,11 +44,15 @@ trap cleanup EXIT
 echo "building the current tree (${build}) ..." >&2
 nice -n 5 cmake -S . -B "$build" -DCMAKE_BUILD_TYPE=Release > "$work/new_configure.log"
 nice -n 5 cmake --build "$build" --target rotcap -j2 > "$work/new_build.log" || { tail -n 30 "$work/new_build.log" >&2; exit 1; }
-echo "building ${old_ref} (${old_commit:0:10}) in a temporary worktree ..." >&2
-git worktree add --detach "$work/old" "$old_commit" > /dev/null 2>&1
-nice -n 5 cmake -S "$work/old" -B "$work/old/build" -DCMAKE_BUILD_TYPE=Release > "$work/old_configure.log"
-nice -n 5 cmake --build "$work/old/build" --target rotcap -j2 > "$work/old_build.log" || { tail -n 30 "$work/old_build.log" >&2; exit 1; }
-old_bin="$work/old/build/rotcap"
+if [ -n "${OLD_BIN:-}" ]; then
+  old_bin="$OLD_BIN"  # a Release binary already built from OLD_COMMIT (the caller vouches for it)
+else
+  echo "building ${old_ref} (${old_commit:0:10}) in a temporary worktree ..." >&2
+  git worktree add --detach "$work/old" "$old_commit" > /dev/null 2>&1
+  nice -n 5 cmake -S "$work/old" -B "$work/old/build" -DCMAKE_BUILD_TYPE=Release > "$work/old_configure.log"
+  nice -n 5 cmake --build "$work/old/build" --target rotcap -j2 > "$work/old_build.log" || { tail -n 30 "$work/old_build.log" >&2; exit 1; }
+  old_bin="$work/old/build/rotcap"
+fi
 new_bin="$root/$build/rotcap"
 
 export OPENBLAS_NUM_THREADS=1  # as the tests and the other benchmarks: one BLAS thread
