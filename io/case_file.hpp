@@ -78,6 +78,12 @@
 // [mesh]  flange_elements     integer (generated only)            18             even, >= 4
 //         web_elements        integer (generated only)            23             >= 4
 //         aspect              number (generated only)             1.0            > 0
+//         tension_coarsening  number (generated only): tension flange about flange_elements / c
+//                             across, web tension part up to c times the fine size; 1 uniform
+//                                                                 1.0            1 <= c <= 3
+//         far_element_length  number (generated only): largest element length along the member
+//                             outside the hinge region, in hinge element lengths
+//                                                                 3.0            1..10
 //         layers              integer                             5              odd, 3..15
 // [analysis]
 //         control             "linear" | "load" | "displacement" | "arc_length"

@@ -5,6 +5,7 @@
 #include "core/text_format.hpp"
 #include "materials/steel_curve.hpp"
 
+#include "model/hinge_zone/section_grading.hpp"
 #include "model/hinge_zone/section_grid.hpp"
 #include "model/hinge_zone/station_grading.hpp"
 #include "model/setups/loading_setup.hpp"
@@ -42,11 +43,17 @@ void validate(const HingeZoneSpec& s) {
            "an even number >= 4 (the web meets the flange at its centre line)");
   if (s.web_elements < 4) reject("mesh.web_elements", std::to_string(s.web_elements), ">= 4");
   if (!(s.aspect > 0.0) || !std::isfinite(s.aspect)) reject("mesh.aspect", num(s.aspect), "a finite value > 0");
+  if (!(s.tension_coarsening >= 1.0 && s.tension_coarsening <= 3.0))
+    reject("mesh.tension_coarsening", num(s.tension_coarsening),
+           "a number from 1 (the uniform mesh) to 3 (tension-side elements up to 3 times the fine size)");
+  if (!(s.far_element_length >= 1.0 && s.far_element_length <= 10.0))
+    reject("mesh.far_element_length", num(s.far_element_length),
+           "a number from 1 to 10 (the largest element length outside the hinge region, in hinge element lengths)");
   // Estimate of the element count (build_hinge_zone: hinge element length he = aspect b / nf,
-  // stations at most 3 he apart, about max(h, b) / he more in the hinge region of 1.5 max(h, b)),
+  // stations at most min(3, far_element_length) he apart, about max(h, b) / he more in the hinge region of 1.5 max(h, b)),
   // in floating point so that no count overflows.
   const double he = s.aspect * s.section.b / s.flange_elements;
-  const double stations = (L / 3.0 + std::max(s.section.h, s.section.b)) / he;
+  const double stations = (L / std::min(3.0, s.far_element_length) + std::max(s.section.h, s.section.b)) / he;
   const double elements = stations * (2.0 * s.flange_elements + s.web_elements);
   if (!(elements <= kMaxHingeZoneElements))
     reject("mesh.flange_elements",
@@ -94,8 +101,7 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
   validate(spec);
   const ISection& sec = spec.section;
   const double L = spec.length;
-  const int nf = spec.flange_elements, nw = spec.web_elements;
-  const double he = spec.aspect * sec.b / nf;
+  const double he = spec.aspect * sec.b / spec.flange_elements;
   const double tol = 1e-6 * L;  // special x's closer than this share a station
 
   HingeZoneModel out;
@@ -133,38 +139,44 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
     for (double p : hard) clear = clear && std::abs(p - x) >= he;
     if (clear) with_hinge.push_back(x);
   }
-  Stations st{grade_stations(unique_points(with_hinge, L, tol), he, hinge_lo, hinge_hi), tol};
+  Stations st{grade_stations(unique_points(with_hinge, L, tol), he, hinge_lo, hinge_hi, spec.far_element_length), tol};
   out.stations = st.x;
 
   // Nodes: the cross-section at every station, then stiffener interiors, then reference nodes.
+  // The tension flange keeps flange_elements where stiffener plates meet both flanges.
   ShellModel& m = out.model;
   m.region_names = {"top_flange", "bottom_flange", "web", "stiffener"};
-  const SectionGrid g{nf, nw};
+  out.axial_force = spec.axial_load_ratio * out.plate.A * spec.fy;
+  out.grid = section_grid(spec, setup.top_flange_in_compression(), out.axial_force, !stiff.empty());
+  const SectionGrid& g = out.grid;
+  const int nb = g.nb(), nt = g.nt(), nw = g.nw();
   const double zf = 0.5 * (sec.h - sec.tf);
-  // Measured from the web (y = 0) and the mid-depth, so the centre lines are exactly y = 0, z = 0.
-  auto y_of = [&](int k) { return (k - nf / 2) * (sec.b / nf); };
-  auto z_of = [&](int mm) { return (mm - 0.5 * nw) * (2.0 * zf / nw); };
   const int n_st = static_cast<int>(st.x.size());
   m.nodes.reserve(static_cast<std::size_t>(n_st) * g.per());
   for (int i = 0; i < n_st; ++i) {
-    for (int k = 0; k <= nf; ++k) m.nodes.emplace_back(st.x[i], y_of(k), -zf);
-    for (int k = 0; k <= nf; ++k) m.nodes.emplace_back(st.x[i], y_of(k), zf);
-    for (int mm = 1; mm < nw; ++mm) m.nodes.emplace_back(st.x[i], 0.0, z_of(mm));
+    for (double y : g.y_bottom) m.nodes.emplace_back(st.x[i], y, -zf);
+    for (double y : g.y_top) m.nodes.emplace_back(st.x[i], y, zf);
+    for (int mm = 1; mm < nw; ++mm) m.nodes.emplace_back(st.x[i], 0.0, g.z_web[mm]);
   }
 
   // Elements between stations: flanges CCW about +z, web CCW about +y.
   for (int i = 0; i + 1 < n_st; ++i) {
-    for (int k = 0; k < nf; ++k) {
-      m.elements.push_back({{g.top(i, k), g.top(i + 1, k), g.top(i + 1, k + 1), g.top(i, k + 1)}, sec.tf, kTopFlange});
-      m.elements.push_back(
-          {{g.bottom(i, k), g.bottom(i + 1, k), g.bottom(i + 1, k + 1), g.bottom(i, k + 1)}, sec.tf, kBottomFlange});
+    for (int k = 0; k < std::max(nb, nt); ++k) {
+      if (k < nt)
+        m.elements.push_back({{g.top(i, k), g.top(i + 1, k), g.top(i + 1, k + 1), g.top(i, k + 1)}, sec.tf, kTopFlange});
+      if (k < nb)
+        m.elements.push_back(
+            {{g.bottom(i, k), g.bottom(i + 1, k), g.bottom(i + 1, k + 1), g.bottom(i, k + 1)}, sec.tf, kBottomFlange});
     }
     for (int mm = 0; mm < nw; ++mm)
       m.elements.push_back({{g.web(i, mm), g.web(i, mm + 1), g.web(i + 1, mm + 1), g.web(i + 1, mm)}, sec.tw, kWeb});
   }
 
   // Stiffeners: a (nf + 1) x (nw + 1) grid in the y-z plane, CCW about +x; its bottom and top
-  // rows are the flange nodes, its k = nf/2 column the web nodes.
+  // rows are the flange nodes (both flanges have nf elements then), its k = nf/2 column the web
+  // nodes.
+  const int nf = nb;
+  ROTCAP_CHECK(stiff.empty() || nb == nt, "stiffener plates need flanges of equal element counts");
   const double ts = spec.stiffener_thickness.value_or(sec.tf);
   for (double xs : stiff) {
     const int i = st.at(xs);
@@ -178,7 +190,7 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
         else if (k == nf / 2) id(k, mm) = g.web(i, mm);
         else {
           id(k, mm) = m.node_count();
-          m.nodes.emplace_back(st.x[i], y_of(k), z_of(mm));
+          m.nodes.emplace_back(st.x[i], g.y_bottom[k], g.z_web[mm]);
         }
       }
     for (int mm = 0; mm < nw; ++mm)
@@ -187,8 +199,7 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
   }
 
   // Supports, ties, loads and the hinge-rotation measure of the setup.
-  const int last = n_st - 1, c = nf / 2;
-  out.axial_force = spec.axial_load_ratio * out.plate.A * spec.fy;
+  const int last = n_st - 1;
   setup.apply(HingeZoneMesh{spec, g, st, out});
 
   // Lateral restraints on the flange centre-line nodes; none at a rigidly tied end section.
@@ -196,8 +207,8 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
     const LateralBrace& r = spec.lateral_restraints[k];
     const int i = st.at(r.x);
     NodeGroup group;
-    if (r.flange != RestrainedFlange::bottom) group.nodes.push_back(g.top(i, c));
-    if (r.flange != RestrainedFlange::top) group.nodes.push_back(g.bottom(i, c));
+    if (r.flange != RestrainedFlange::bottom) group.nodes.push_back(g.top_centre(i));
+    if (r.flange != RestrainedFlange::top) group.nodes.push_back(g.bottom_centre(i));
     std::sort(group.nodes.begin(), group.nodes.end());
     for (int n : group.nodes) group.cells.push_back({n});
     const std::string name = "restraint_" + std::to_string(k);

@@ -9,7 +9,6 @@ namespace {
 
 constexpr double kGrowth = 0.2;      // slope of the target size: element ratio 1 + kGrowth
 constexpr double kMaxRatio = 1.25;   // accepted ratio of neighbouring element lengths
-constexpr double kMaxSize = 3.0;     // largest element, in hinge element lengths
 
 struct SizeField {
   std::vector<double> x, s;
@@ -22,7 +21,7 @@ void limit_slope(SizeField& f) {
   for (std::size_t i = f.s.size() - 1; i-- > 0;) f.s[i] = std::min(f.s[i], f.s[i + 1] + kGrowth * (f.x[i + 1] - f.x[i]));
 }
 
-SizeField initial_field(const std::vector<double>& hard, double he, double hinge_lo, double hinge_hi) {
+SizeField initial_field(const std::vector<double>& hard, double he, double hinge_lo, double hinge_hi, double max_size) {
   SizeField f;
   for (std::size_t j = 0; j + 1 < hard.size(); ++j) {
     const double a = hard[j], len = hard[j + 1] - a;
@@ -32,7 +31,7 @@ SizeField initial_field(const std::vector<double>& hard, double he, double hinge
       const double x = t == m ? hard[j + 1] : a + len * t / m;
       const double d = x < hinge_lo ? hinge_lo - x : (x > hinge_hi ? x - hinge_hi : 0.0);
       f.x.push_back(x);
-      f.s.push_back(std::min({kMaxSize * he, he + kGrowth * d, len}));  // no element beyond its span
+      f.s.push_back(std::min({max_size * he, he + kGrowth * d, len}));  // no element beyond its span
     }
   }
   f.begin.push_back(f.x.size());
@@ -68,8 +67,9 @@ void lower(SizeField& f, double x0, double x1, double value) {
 
 }  // namespace
 
-std::vector<double> grade_stations(const std::vector<double>& hard, double he, double hinge_lo, double hinge_hi) {
-  SizeField f = initial_field(hard, he, hinge_lo, hinge_hi);
+std::vector<double> grade_stations(const std::vector<double>& hard, double he, double hinge_lo, double hinge_hi,
+                                   double max_size) {
+  SizeField f = initial_field(hard, he, hinge_lo, hinge_hi, max_size);
   for (int iteration = 0; iteration < 100; ++iteration) {
     const std::vector<double> st = place_stations(f);
     bool graded = true;

@@ -13,8 +13,10 @@
 namespace rotcap {
 
 /// Node lines (ascending x [mm]) through every hard point (sorted, unique, first 0, last L), at
-/// h_e [mm] > 0 in [hinge_lo, hinge_hi] and graded outside it.
-std::vector<double> grade_stations(const std::vector<double>& hard, double he, double hinge_lo, double hinge_hi);
+/// h_e [mm] > 0 in [hinge_lo, hinge_hi] and graded outside it up to max_size h_e (max_size >= 1;
+/// HingeZoneSpec::far_element_length).
+std::vector<double> grade_stations(const std::vector<double>& hard, double he, double hinge_lo, double hinge_hi,
+                                   double max_size);
 
 /// Sorted, with points closer than tol merged into the first (points within tol of 0 or L become
 /// exactly 0 or L).
