@@ -9,14 +9,18 @@
 //                        compression flange, fewer for the tension flange (below);
 //   web                  y = 0, from flange to flange, thickness tw, over h - tf;
 //   stiffener            a transverse plate in the y-z plane at its x, on both sides of the web,
-//                        full flange width and full web depth, on the flanges' y lines and the
-//                        web's z lines (it shares those nodes), thickness stiffener_thickness.
+//                        full flange width and full web depth, on the compression flange's y
+//                        lines and the web's z lines (it shares those nodes), thickness
+//                        stiffener_thickness; next to a coarser tension flange one transition
+//                        row: a quad per narrow cell, six quads (three extra nodes halfway)
+//                        per pair of wide cells, so it meets that flange node to node.
 // Cross-section grid (section_grading.hpp; the same at every station): the setup says which
 // flange is in compression (LoadingSetup::top_flange_in_compression: hogging cantilever the
 // bottom, the beams and uniform moment the top). With c = tension_coarsening (1 <= c <= 3):
-//   - compression flange: flange_elements; tension flange: flange_elements / c rounded to an
-//     even count >= 4 (both flanges keep flange_elements where stiffener plates are meshed,
-//     whose y lines are the flanges');
+//   - compression flange: flange_elements equal elements; tension flange: about
+//     flange_elements / c, at least half as many and at least 4, on a subset of the compression
+//     flange's y lines (per half, from the web outwards, cells of one fine width, then pairs of
+//     cells of two fine widths; section_grading.hpp);
 //   - web: the fine size (h - tf) / web_elements from the compression flange to the plastic
 //     neutral axis under the axial load (mid-depth moved N / (2 fy tw) towards the tension
 //     flange), then growing by at most 1.42 per element up to c times the fine size;

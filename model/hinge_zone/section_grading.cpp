@@ -38,8 +38,25 @@ struct WebSize {
 
 int tension_flange_elements(int nf, double c) {
   ROTCAP_CHECK(nf >= 4 && nf % 2 == 0 && c >= 1.0, "nf = " + std::to_string(nf) + ", c = " + std::to_string(c));
-  const int n = 2 * static_cast<int>(std::lround(0.5 * nf / c));
-  return std::clamp(n, 4, nf);
+  // Per half: h fine cells become n cells, (h - n) of two fine widths in pairs and 2 n - h of one.
+  const int h = nf / 2;
+  const double target = h / c;
+  int best = h;
+  for (int n = h; n >= std::max(1, (h + 1) / 2); --n)
+    if ((h - n) % 2 == 0 && std::abs(n - target) < std::abs(best - target) - 1e-9) best = n;
+  return std::max(4, 2 * best);
+}
+
+std::vector<int> tension_flange_indices(int nf, int n) {
+  const int h = nf / 2, half = n / 2, singles = 2 * half - h;
+  ROTCAP_CHECK(n % 2 == 0 && half <= h && singles >= 0 && (h - half) % 2 == 0,
+               "tension flange of " + std::to_string(n) + " elements on " + std::to_string(nf));
+  std::vector<int> right{h};  // from the web outwards: cells of one fine width first, then of two
+  for (int j = 0; j < half; ++j) right.push_back(right.back() + (j < singles ? 1 : 2));
+  std::vector<int> k;
+  for (auto it = right.rbegin(); it != right.rend(); ++it) k.push_back(nf - *it);  // mirrored left half
+  k.insert(k.end(), right.begin() + 1, right.end());
+  return k;
 }
 
 std::vector<double> web_lines(double zf, int nw, double c, bool top_in_compression, double e) {
@@ -65,16 +82,18 @@ std::vector<double> web_lines(double zf, int nw, double c, bool top_in_compressi
   return z;
 }
 
-SectionGrid section_grid(const HingeZoneSpec& spec, bool top_in_compression, double axial_force, bool matched_flanges) {
+SectionGrid section_grid(const HingeZoneSpec& spec, bool top_in_compression, double axial_force) {
   const ISection& sec = spec.section;
   const double c = spec.tension_coarsening;
   const int nf = spec.flange_elements;
-  const int n_tension = matched_flanges ? nf : tension_flange_elements(nf, c);
+  const std::vector<double> fine = flange_lines(sec.b, nf);
+  std::vector<double> tension;
+  for (int k : tension_flange_indices(nf, tension_flange_elements(nf, c))) tension.push_back(fine[static_cast<std::size_t>(k)]);
   const double zf = 0.5 * (sec.h - sec.tf);
   const double e = std::max(0.0, axial_force) / (2.0 * spec.fy * sec.tw);  // the web carries N first
   SectionGrid g;
-  g.y_bottom = flange_lines(sec.b, top_in_compression ? n_tension : nf);
-  g.y_top = flange_lines(sec.b, top_in_compression ? nf : n_tension);
+  g.y_bottom = top_in_compression ? tension : fine;
+  g.y_top = top_in_compression ? fine : tension;
   g.z_web = web_lines(zf, spec.web_elements, c, top_in_compression, e);
   return g;
 }

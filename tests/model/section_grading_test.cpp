@@ -16,7 +16,8 @@
 namespace rotcap {
 namespace {
 
-// IPE 300 at the default counts 18 x 23, tension side coarsened 2 x, no stiffener plates.
+// IPE 300 at the default counts 18 x 23, tension side coarsened 2 x, no stiffener plates (the
+// stiffener test adds them).
 HingeZoneSpec coarse_spec(HingeSetup setup, double length) {
   HingeZoneSpec s;
   s.section = *find_section("IPE 300");
@@ -33,16 +34,41 @@ const HingeSetup kSetups[] = {HingeSetup::cantilever, HingeSetup::three_point, H
 
 TEST(SectionGrading, TensionFlangeCountIsEvenAndWithinFourAndTheFineCount) {
   EXPECT_EQ(tension_flange_elements(18, 1.0), 18);
-  EXPECT_EQ(tension_flange_elements(18, 2.0), 10);  // 9 rounds to the even 10 (lround(4.5) = 5)
-  EXPECT_EQ(tension_flange_elements(20, 2.0), 10);
-  EXPECT_EQ(tension_flange_elements(18, 3.0), 6);
-  EXPECT_EQ(tension_flange_elements(6, 3.0), 4);
+  EXPECT_EQ(tension_flange_elements(18, 2.0), 10);  // per half 9 -> 5: 1 cell of one width, 4 of two
+  EXPECT_EQ(tension_flange_elements(20, 2.0), 12);  // per half 10 -> 6 (10 - 5 is odd: no pairs)
+  EXPECT_EQ(tension_flange_elements(18, 3.0), 10);  // at most half the count
+  EXPECT_EQ(tension_flange_elements(6, 2.0), 6);    // per half 3: no even reduction
   for (int nf = 4; nf <= 40; nf += 2)
     for (double c : {1.0, 1.3, 1.5, 2.0, 2.5, 3.0}) {
       const int n = tension_flange_elements(nf, c);
       EXPECT_EQ(n % 2, 0);
       EXPECT_GE(n, 4);
       EXPECT_LE(n, nf);
+    }
+}
+
+TEST(SectionGrading, TensionFlangeLinesAreASymmetricSubsetWithPairedWideCells) {
+  EXPECT_EQ(tension_flange_indices(18, 10), (std::vector<int>{0, 2, 4, 6, 8, 9, 10, 12, 14, 16, 18}));
+  EXPECT_EQ(tension_flange_indices(8, 8), (std::vector<int>{0, 1, 2, 3, 4, 5, 6, 7, 8}));
+  for (int nf = 4; nf <= 40; nf += 2)
+    for (double c : {1.0, 1.5, 2.0}) {
+      const int n = tension_flange_elements(nf, c);
+      const std::vector<int> k = tension_flange_indices(nf, n);
+      ASSERT_EQ(static_cast<int>(k.size()), n + 1);
+      EXPECT_EQ(k[n / 2], nf / 2);  // the web junction
+      int wide = 0;
+      for (int j = 0; j < n; ++j) {
+        EXPECT_EQ(k[j] + k[n - j], nf);  // symmetric about the web
+        const int w = k[j + 1] - k[j];
+        EXPECT_TRUE(w == 1 || w == 2);
+        if (w == 2) {
+          ++wide;
+        } else {
+          EXPECT_EQ(wide % 2, 0);  // cells of two come in pairs
+          wide = 0;
+        }
+      }
+      EXPECT_EQ(wide % 2, 0);
     }
 }
 
@@ -100,15 +126,48 @@ TEST(SectionGrading, CoarsensTheTensionFlangeOfEachSetup) {
   }
 }
 
-TEST(SectionGrading, KeepsBothFlangesFineWhereStiffenerPlatesMeetThem) {
-  HingeZoneSpec s = coarse_spec(HingeSetup::three_point, 2400.0);
-  s.stiffeners = StiffenerPlacement::supports_and_loads;
-  const HingeZoneModel h = build_hinge_zone(s);
-  EXPECT_EQ(h.stiffener_x.size(), 3u);
-  EXPECT_EQ(h.grid.nb(), 18);
-  EXPECT_EQ(h.grid.nt(), 18);
-  EXPECT_LT(h.grid.nw(), 23);  // the web is still graded; the stiffeners follow its z lines
-  EXPECT_NO_THROW(validate_topology(h.model));
+// Every stiffener edge on a flange or the web is an edge of that plate (no hanging nodes where the
+// stiffener meets the coarse flange), and the stiffener covers its b x (h - tf) exactly.
+TEST(SectionGrading, StiffenerPlatesMeetTheCoarseFlangeConformingly) {
+  for (HingeSetup setup : {HingeSetup::three_point, HingeSetup::four_point}) {
+    HingeZoneSpec s = coarse_spec(setup, 2400.0);
+    s.stiffeners = StiffenerPlacement::supports_and_loads;
+    const HingeZoneModel h = build_hinge_zone(s);
+    ASSERT_GE(h.stiffener_x.size(), 3u);
+    EXPECT_EQ(h.grid.nt(), 18);
+    EXPECT_EQ(h.grid.nb(), 10);
+    const ShellModel& m = h.model;
+    std::set<std::pair<int, int>> plate_edges;  // flanges and web
+    std::map<std::pair<int, int>, int> stiffener_edges;
+    double area = 0.0;
+    for (const auto& e : m.elements)
+      for (int a = 0; a < 4; ++a) {
+        const int p = e.nodes[a], q = e.nodes[(a + 1) % 4];
+        if (e.region == 3) ++stiffener_edges[{std::min(p, q), std::max(p, q)}];
+        else plate_edges.insert({std::min(p, q), std::max(p, q)});
+      }
+    for (const auto& e : m.elements)
+      if (e.region == 3) {
+        const auto& x = m.nodes;
+        const Eigen::Vector3d n = (x[e.nodes[2]] - x[e.nodes[0]]).cross(x[e.nodes[3]] - x[e.nodes[1]]);
+        EXPECT_GT(n.normalized().x(), 1.0 - 1e-12) << "CCW about +x";
+        area += 0.5 * n.norm();
+      }
+    const double zf = 0.5 * (s.section.h - s.section.tf), tol = 1e-9 * s.section.h;
+    EXPECT_CLOSE(area, h.stiffener_x.size() * s.section.b * 2.0 * zf, 1e-12, 0.0);
+    for (const auto& [edge, count] : stiffener_edges) {
+      const Eigen::Vector3d& a = m.nodes[edge.first];
+      const Eigen::Vector3d& b = m.nodes[edge.second];
+      const bool on_flange = std::abs(std::abs(a.z()) - zf) <= tol && std::abs(a.z() - b.z()) <= tol;
+      const bool on_web = std::abs(a.y()) <= tol && std::abs(b.y()) <= tol;
+      if (on_flange || on_web) {
+        EXPECT_TRUE(plate_edges.count(edge)) << "stiffener edge " << edge.first << "-" << edge.second << " hangs";
+      } else if (std::abs(std::abs(a.y()) - 0.5 * s.section.b) > tol) {
+        EXPECT_EQ(count, 2) << "interior stiffener edge " << edge.first << "-" << edge.second;
+      }
+    }
+    EXPECT_NO_THROW(validate_topology(m));
+  }
 }
 
 TEST(SectionGrading, EveryStationHoldsPerNodesWithSharedJunctions) {
