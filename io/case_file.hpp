@@ -84,6 +84,9 @@
 //         far_element_length  number (generated only): largest element length along the member
 //                             outside the hinge region, in hinge element lengths
 //                                                                 3.0            1..10
+//         far_growth          number (generated only): growth of the element length per element
+//                             along the member outside the hinge region
+//                                                                 0.2            0.05..0.5
 //         layers              integer                             5              odd, 3..15
 // [analysis]
 //         control             "linear" | "load" | "displacement" | "arc_length"

@@ -114,6 +114,9 @@ void validate(const HingeZoneSpec& s) {
   if (!(s.tension_coarsening >= 1.0 && s.tension_coarsening <= 3.0))
     reject("mesh.tension_coarsening", num(s.tension_coarsening),
            "a number from 1 (the uniform mesh) to 3 (tension-side elements up to 3 times the fine size)");
+  if (!(s.far_growth >= 0.05 && s.far_growth <= 0.5))
+    reject("mesh.far_growth", num(s.far_growth),
+           "a number from 0.05 to 0.5 (the growth of the element length per element outside the hinge region)");
   if (!(s.far_element_length >= 1.0 && s.far_element_length <= 10.0))
     reject("mesh.far_element_length", num(s.far_element_length),
            "a number from 1 to 10 (the largest element length outside the hinge region, in hinge element lengths)");
@@ -207,7 +210,8 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
     for (double p : hard) clear = clear && std::abs(p - x) >= he;
     if (clear) with_hinge.push_back(x);
   }
-  Stations st{grade_stations(unique_points(with_hinge, L, tol), he, hinge_lo, hinge_hi, spec.far_element_length), tol};
+  Stations st{grade_stations(unique_points(with_hinge, L, tol), he, hinge_lo, hinge_hi, spec.far_element_length,
+                              spec.far_growth), tol};
   out.stations = st.x;
 
   // Nodes: the cross-section at every station, then stiffener interiors, then reference nodes.

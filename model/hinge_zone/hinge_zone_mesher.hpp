@@ -35,15 +35,15 @@
 //   - hinge region: h_e = aspect * b / flange_elements; the setup places the hinge region from
 //     its reach n h_e, n = ceil(1.5 max(h, b) / h_e) (LoadingSetup::stations);
 //   - outside it, a target size growing linearly with the distance d from the hinge region,
-//     s(d) = min(F h_e, h_e + 0.2 d), i.e. a geometric sequence of ratio 1.2 up to F h_e,
-//     F = far_element_length (3 by default);
+//     s(d) = min(F h_e, h_e + g d), i.e. a geometric sequence of ratio 1 + g up to F h_e,
+//     F = far_element_length, g = far_growth;
 //   - each span between consecutive special x's gets ceil(int dx/s) elements, spaced at equal
 //     increments of int dx/s, so no element exceeds its target; the hinge region's ends are node
 //     lines too where they lie at least h_e from every special x, so that the hinge elements
 //     next to the support (cantilever) or the load (beams) are exactly h_e;
-//   - where neighbouring elements still differ by more than 25 % (short spans, rounding), the
-//     target is lowered over the larger element to 1.2 times the smaller one, re-limited to the
-//     slope 0.2, and the spans are placed again (at most 100 rounds).
+//   - where neighbouring elements still differ by more than 1.05 + g (short spans, rounding),
+//     the target is lowered over the larger element to 1 + g times the smaller one, re-limited
+//     to the slope g, and the spans are placed again (at most 100 rounds).
 //   Elements near a special x may thus be shorter than h_e (two special x's closer than h_e give
 //   one short element between them and a graded transition around it). Special x's closer than
 //   1e-6 L share one node line.
@@ -76,7 +76,7 @@ namespace rotcap {
 /// "member.stiffeners[k]" (k from 0),
 /// "member.stiffener_thickness", "restraints.lateral[k].x", "mesh.flange_elements",
 /// "mesh.web_elements", "mesh.aspect", "mesh.tension_coarsening",
-/// "mesh.far_element_length", "steel.fy", or a "section.*" key from validate()).
+/// "mesh.far_growth", "mesh.far_element_length", "steel.fy", or a "section.*" key from validate()).
 /// The mesh must also stay below kMaxHingeZoneElements shell elements by an estimate (stations
 /// at most min(3, far_element_length) hinge element lengths apart over the member, more in the hinge region, times the
 /// section's 2 flange_elements + web_elements), reported at "mesh.flange_elements": a longer

@@ -52,8 +52,11 @@ struct HingeZoneSpec {
   /// up to c times the fine size; 1 is the uniform mesh.
   double tension_coarsening = 1.0;
   /// Largest element length along x outside the hinge region, in hinge element lengths h_e,
-  /// 1 <= value <= 10 (the target grows from h_e with slope 0.2 up to it; 3 before it was a key).
+  /// 1 <= value <= 10 (3 before it was a key).
   double far_element_length = 3.0;
+  /// Slope of the element length along x outside the hinge region (element ratio 1 + g),
+  /// 0.05 <= g <= 0.5 (0.2 before it was a key).
+  double far_growth = 0.2;
   double axial_load_ratio = 0.0;  ///< N / (A_plate fy), 0 <= n < 1; cantilever, uniform_moment only
   double fy = 355.0;          ///< [MPa] > 0, for Mp and N
   CantileverSupport cantilever_support = CantileverSupport::fixed;

@@ -162,11 +162,13 @@ TEST(InputErrors, TensionCoarseningOutOfRangeNamesTheKeyAndRange) {
                      {"beam.toml:14: mesh.tension_coarsening", "\"coarse\""});
 }
 
-TEST(InputErrors, FarElementLengthOutOfRangeNamesTheKeyAndRange) {
+TEST(InputErrors, FarRegionGradingOutOfRangeNamesTheKeyAndRange) {
   expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 5\nfar_element_length = 0.5")); },
                      {"beam.toml:14: mesh.far_element_length: found 0.5; expected a number from 1 to 10"});
   expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 5\nfar_element_length = 11")); },
                      {"mesh.far_element_length: found 11"});
+  expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 5\nfar_growth = 0")); },
+                     {"beam.toml:14: mesh.far_growth: found 0; expected a number from 0.05 to 0.5"});
 }
 
 TEST(InputErrors, MeshGradingKeysAreGeneratedOnly) {
@@ -174,6 +176,8 @@ TEST(InputErrors, MeshGradingKeysAreGeneratedOnly) {
                      {"mesh.tension_coarsening", "only mesh.layers in a general model"});
   expect_input_error([] { general(general_text() + "[mesh]\nfar_element_length = 6.0\n"); },
                      {"mesh.far_element_length", "only mesh.layers in a general model"});
+  expect_input_error([] { general(general_text() + "[mesh]\nfar_growth = 0.3\n"); },
+                     {"mesh.far_growth", "only mesh.layers in a general model"});
 }
 
 TEST(InputErrors, TensileStrengthBelowYieldNamesBothValues) {
