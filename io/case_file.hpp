@@ -82,7 +82,7 @@
 //                             across, web tension part up to c times the fine size; 1 uniform
 //                                                                 2.0            1 <= c <= 3
 //         far_element_length  number (generated only): largest element length along the member
-//                             outside the hinge region, in hinge element lengths
+//                             outside the hinge region, in hinge element lengths (<= b/2)
 //                                                                 6.0            1..10
 //         far_growth          number (generated only): growth of the element length per element
 //                             along the member outside the hinge region

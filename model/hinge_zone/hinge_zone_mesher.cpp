@@ -210,8 +210,10 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
     for (double p : hard) clear = clear && std::abs(p - x) >= he;
     if (clear) with_hinge.push_back(x);
   }
-  Stations st{grade_stations(unique_points(with_hinge, L, tol), he, hinge_lo, hinge_hi, spec.far_element_length,
-                              spec.far_growth), tol};
+  // Far-region elements: at most far_element_length h_e and at most b/2 (= nf / (2 aspect) h_e), so
+  // that coarse section meshes keep a flange's buckle length b resolved along x.
+  const double far_size = std::max(1.0, std::min(spec.far_element_length, 0.5 * sec.b / he));
+  Stations st{grade_stations(unique_points(with_hinge, L, tol), he, hinge_lo, hinge_hi, far_size, spec.far_growth), tol};
   out.stations = st.x;
 
   // Nodes: the cross-section at every station, then stiffener interiors, then reference nodes.

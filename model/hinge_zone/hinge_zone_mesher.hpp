@@ -36,7 +36,8 @@
 //     its reach n h_e, n = ceil(1.5 max(h, b) / h_e) (LoadingSetup::stations);
 //   - outside it, a target size growing linearly with the distance d from the hinge region,
 //     s(d) = min(F h_e, h_e + g d), i.e. a geometric sequence of ratio 1 + g up to F h_e,
-//     F = far_element_length (default 6), g = far_growth (default 0.3);
+//     F = far_element_length (default 6) but at most b / (2 h_e) (>= 1), g = far_growth
+//     (default 0.3);
 //   - each span between consecutive special x's gets ceil(int dx/s) elements, spaced at equal
 //     increments of int dx/s, so no element exceeds its target; the hinge region's ends are node
 //     lines too where they lie at least h_e from every special x, so that the hinge elements

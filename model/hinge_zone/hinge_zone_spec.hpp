@@ -54,7 +54,7 @@ struct HingeZoneSpec {
   /// mesh (1, 3, 0.2) on three cases (bench/results/mesh_grading.txt).
   double tension_coarsening = 2.0;
   /// Largest element length along x outside the hinge region, in hinge element lengths h_e,
-  /// 1 <= value <= 10.
+  /// 1 <= value <= 10; the mesher also keeps it at most b/2.
   double far_element_length = 6.0;
   /// Slope of the element length along x outside the hinge region (element ratio 1 + g),
   /// 0.05 <= g <= 0.5.

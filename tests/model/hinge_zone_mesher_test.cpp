@@ -132,10 +132,11 @@ TEST(HingeZoneMesher, GradesElementLengthsAwayFromTheHinge) {
     // Hinge region: ceil(1.5 * 300 / 18.75) = 24 elements of exactly h_e from the support.
     for (int i = 0; i < 24; ++i) EXPECT_CLOSE(d[i], he, 1e-9, 0.0) << "element " << i;
     // Beyond it: growing by at most 1.05 + growth per element, up to at most far_element_length
-    // h_e, reaching close to it.
+    // h_e and b/2 = 4 h_e (so 3 h_e and 4 h_e here), reaching close to it.
+    const double largest = std::min(far.size, 0.5 * 150.0 / he) * he;
     EXPECT_LE(worst_ratio(d), 1.05 + far.growth);
-    EXPECT_LE(*std::max_element(d.begin(), d.end()), far.size * he * (1.0 + 1e-12));
-    EXPECT_GT(*std::max_element(d.begin(), d.end()), (far.size - 0.5) * he);
+    EXPECT_LE(*std::max_element(d.begin(), d.end()), largest * (1.0 + 1e-12));
+    EXPECT_GT(*std::max_element(d.begin(), d.end()), largest - 0.5 * he);
     for (std::size_t i = 24; i + 1 < d.size(); ++i) EXPECT_GE(d[i + 1], d[i] * (1.0 - 1e-9)) << "element " << i;
   }
 }
@@ -157,6 +158,7 @@ TEST(HingeZoneMesher, KeepsTheGradingBoundForRandomSpecialPositions) {
       SCOPED_TRACE("trial " + std::to_string(trial) + ", far_element_length " + std::to_string(far.size));
       EXPECT_LE(worst_ratio(d), 1.05 + far.growth);
       EXPECT_LE(*std::max_element(d.begin(), d.end()), far.size * h.hinge_element_length * (1.0 + 1e-12));
+      EXPECT_LE(*std::max_element(d.begin(), d.end()), std::max(0.5 * 150.0, h.hinge_element_length) * (1.0 + 1e-12));
     }
   }
 }
