@@ -50,6 +50,9 @@ HingeCase build_hinge_case(const CaseInput& input) {
                           1e3 * hc.theta_p_beam, 1e3 * (hc.theta_p_beam + hc.theta_p_shear)));
   d.push_back(format_text("hinge-region element length %.1f mm; %.0f node lines along the member", hc.zone.hinge_element_length,
                      static_cast<double>(hc.zone.stations.size())));
+  const SectionGrid& g = hc.zone.grid;
+  d.push_back(format_text("cross-section elements: top flange %.0f, bottom flange %.0f, web %.0f (tension_coarsening %g)",
+                          double(g.nt()), double(g.nb()), double(g.nw()), spec.tension_coarsening));
   return hc;
 }
 

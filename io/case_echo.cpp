@@ -128,6 +128,9 @@ json to_json(const CaseInput& c) {
     mesh["flange_elements"] = c.zone.flange_elements;
     mesh["web_elements"] = c.zone.web_elements;
     mesh["aspect"] = c.zone.aspect;
+    mesh["tension_coarsening"] = c.zone.tension_coarsening;
+    mesh["far_element_length"] = c.zone.far_element_length;
+    mesh["far_growth"] = c.zone.far_growth;
   }
   j["mesh"] = mesh;
   j["analysis"] = analysis(c.analysis, c.kind, c.layers.material_substeps);

@@ -191,8 +191,11 @@ void read_mesh(TableReader r, CaseInput& c) {
     c.zone.flange_elements = r.integer("flange_elements", c.zone.flange_elements);
     c.zone.web_elements = r.integer("web_elements", c.zone.web_elements);
     c.zone.aspect = r.number("aspect", c.zone.aspect);
+    c.zone.tension_coarsening = r.number("tension_coarsening", c.zone.tension_coarsening);
+    c.zone.far_element_length = r.number("far_element_length", c.zone.far_element_length);
+    c.zone.far_growth = r.number("far_growth", c.zone.far_growth);
   } else {
-    for (const char* key : {"flange_elements", "web_elements", "aspect"})
+    for (const char* key : {"flange_elements", "web_elements", "aspect", "tension_coarsening", "far_element_length", "far_growth"})
       r.forbid(key, "only mesh.layers in a general model (the mesh comes from [model] mesh)");
   }
   c.layers.layers = r.integer("layers", c.layers.layers);

@@ -78,6 +78,15 @@
 // [mesh]  flange_elements     integer (generated only)            18             even, >= 4
 //         web_elements        integer (generated only)            23             >= 4
 //         aspect              number (generated only)             1.0            > 0
+//         tension_coarsening  number (generated only): tension flange about flange_elements / c
+//                             across, web tension part up to c times the fine size; 1 uniform
+//                                                                 2.0            1 <= c <= 3
+//         far_element_length  number (generated only): largest element length along the member
+//                             outside the hinge region, in hinge element lengths (<= b/2)
+//                                                                 6.0            1..10
+//         far_growth          number (generated only): growth of the element length per element
+//                             along the member outside the hinge region
+//                                                                 0.3            0.05..0.5
 //         layers              integer                             5              odd, 3..15
 // [analysis]
 //         control             "linear" | "load" | "displacement" | "arc_length"

@@ -139,7 +139,8 @@ struct CaseInput {
   std::string title;
   ModelKind kind = ModelKind::generated;
   // Generated models: [section] -> zone.section, [member], [restraints] lateral, [mesh]
-  // flange_elements, web_elements, aspect; zone.fy is steel.fy.
+  // flange_elements, web_elements, aspect, tension_coarsening, far_element_length,
+  // far_growth; zone.fy is steel.fy.
   HingeZoneSpec zone;
   ResidualStressKind residual_stress = ResidualStressKind::none;
   std::optional<RotationDemand> demand;  ///< [demand]: required plastic rotation or R

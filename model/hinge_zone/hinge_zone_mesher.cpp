@@ -5,11 +5,15 @@
 #include "core/text_format.hpp"
 #include "materials/steel_curve.hpp"
 
+#include "model/hinge_zone/section_grading.hpp"
 #include "model/hinge_zone/section_grid.hpp"
 #include "model/hinge_zone/station_grading.hpp"
 #include "model/setups/loading_setup.hpp"
 
+#include <Eigen/Geometry>
+
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <set>
 #include <stdexcept>
@@ -24,6 +28,71 @@ std::string num(double v) { return format_number(v); }
 
 [[noreturn]] void reject(const std::string& key, const std::string& found, const std::string& expected) {
   throw OptionError(key, found, expected);
+}
+
+/// Appends a quad, its nodes ordered counter-clockwise about +x (the stiffener plates' normal).
+void push_ccw_about_x(ShellModel& m, std::array<int, 4> q, double t, int region) {
+  const Eigen::Vector3d n = (m.nodes[q[2]] - m.nodes[q[0]]).cross(m.nodes[q[3]] - m.nodes[q[1]]);
+  if (n.x() < 0.0) std::swap(q[1], q[3]);
+  m.elements.push_back({q, t, region});
+}
+
+/// The stiffener plate at station i (x [mm]), zf [mm] the flanges' z, thickness t [mm].
+void add_stiffener(ShellModel& m, const SectionGrid& g, double x, int i, double zf, double t, int region) {
+  const int nb = g.nb(), nt = g.nt(), nw = g.nw();
+  const int nf = std::max(nb, nt);
+  const std::vector<double>& yf = nb >= nt ? g.y_bottom : g.y_top;  // the finer flange's lines
+  std::vector<int> grid(static_cast<std::size_t>((nf + 1) * (nw + 1)), -1);
+  auto id = [&](int k, int mm) -> int& { return grid[static_cast<std::size_t>(mm * (nf + 1) + k)]; };
+  // Flange rows: fine k of each flange node (the coarser flange's lines are a subset).
+  auto fine_k = [&](double y) {
+    const auto it = std::find(yf.begin(), yf.end(), y);
+    ROTCAP_CHECK(it != yf.end(), "a tension flange line off the compression flange's lines");
+    return static_cast<int>(it - yf.begin());
+  };
+  for (int k = 0; k <= nb; ++k) id(fine_k(g.y_bottom[k]), 0) = g.bottom(i, k);
+  for (int k = 0; k <= nt; ++k) id(fine_k(g.y_top[k]), nw) = g.top(i, k);
+  for (int mm = 1; mm < nw; ++mm)
+    for (int k = 0; k <= nf; ++k) {
+      if (k == nf / 2) id(k, mm) = g.web(i, mm);
+      else {
+        id(k, mm) = m.node_count();
+        m.nodes.emplace_back(x, yf[k], g.z_web[mm]);
+      }
+    }
+  // The transition row (none when both flanges have nf elements): between the coarse flange row
+  // and the next web row.
+  const int coarse_row = nb < nf ? 0 : (nt < nf ? nw : -1);
+  const int inner_row = coarse_row == 0 ? 1 : nw - 1;
+  for (int mm = 0; mm < nw; ++mm) {
+    if (coarse_row >= 0 && mm == std::min(coarse_row, inner_row)) continue;
+    for (int k = 0; k < nf; ++k) push_ccw_about_x(m, {id(k, mm), id(k + 1, mm), id(k + 1, mm + 1), id(k, mm + 1)}, t, region);
+  }
+  if (coarse_row < 0) return;
+  const double zc = coarse_row == 0 ? -zf : zf, zm = 0.5 * (zc + g.z_web[inner_row]);
+  for (int k = 0; k < nf;) {
+    auto b = [&](int j) { return id(k + j, inner_row); };  // the web-row side
+    if (id(k + 1, coarse_row) >= 0) {  // a cell of one fine width
+      push_ccw_about_x(m, {b(0), b(1), id(k + 1, coarse_row), id(k, coarse_row)}, t, region);
+      k += 1;
+      continue;
+    }
+    // A pair of cells of two fine widths: coarse nodes c0, c1, c2 at k, k + 2, k + 4; three
+    // middle nodes p1..p3 halfway to the web row at k + 1..k + 3.
+    ROTCAP_CHECK(id(k + 2, coarse_row) >= 0 && id(k + 4, coarse_row) >= 0 && id(k + 3, coarse_row) < 0,
+                 "stiffener transition: cells of two fine widths must come in pairs");
+    const int c0 = id(k, coarse_row), c1 = id(k + 2, coarse_row), c2 = id(k + 4, coarse_row);
+    std::array<int, 4> p{};
+    for (int j = 1; j <= 3; ++j) {
+      p[j] = m.node_count();
+      m.nodes.emplace_back(x, yf[k + j], zm);
+    }
+    for (const std::array<int, 4>& q : {std::array<int, 4>{b(0), b(1), p[1], c0}, {b(1), b(2), p[2], p[1]},
+                                        {b(2), b(3), p[3], p[2]}, {b(3), b(4), c2, p[3]}, {p[1], p[2], c1, c0},
+                                        {p[2], p[3], c2, c1}})
+      push_ccw_about_x(m, q, t, region);
+    k += 4;
+  }
 }
 
 }  // namespace
@@ -42,11 +111,20 @@ void validate(const HingeZoneSpec& s) {
            "an even number >= 4 (the web meets the flange at its centre line)");
   if (s.web_elements < 4) reject("mesh.web_elements", std::to_string(s.web_elements), ">= 4");
   if (!(s.aspect > 0.0) || !std::isfinite(s.aspect)) reject("mesh.aspect", num(s.aspect), "a finite value > 0");
+  if (!(s.tension_coarsening >= 1.0 && s.tension_coarsening <= 3.0))
+    reject("mesh.tension_coarsening", num(s.tension_coarsening),
+           "a number from 1 (the uniform mesh) to 3 (tension-side elements up to 3 times the fine size)");
+  if (!(s.far_growth >= 0.05 && s.far_growth <= 0.5))
+    reject("mesh.far_growth", num(s.far_growth),
+           "a number from 0.05 to 0.5 (the growth of the element length per element outside the hinge region)");
+  if (!(s.far_element_length >= 1.0 && s.far_element_length <= 10.0))
+    reject("mesh.far_element_length", num(s.far_element_length),
+           "a number from 1 to 10 (the largest element length outside the hinge region, in hinge element lengths)");
   // Estimate of the element count (build_hinge_zone: hinge element length he = aspect b / nf,
-  // stations at most 3 he apart, about max(h, b) / he more in the hinge region of 1.5 max(h, b)),
+  // stations at most min(3, far_element_length) he apart, about max(h, b) / he more in the hinge region of 1.5 max(h, b)),
   // in floating point so that no count overflows.
   const double he = s.aspect * s.section.b / s.flange_elements;
-  const double stations = (L / 3.0 + std::max(s.section.h, s.section.b)) / he;
+  const double stations = (L / std::min(3.0, s.far_element_length) + std::max(s.section.h, s.section.b)) / he;
   const double elements = stations * (2.0 * s.flange_elements + s.web_elements);
   if (!(elements <= kMaxHingeZoneElements))
     reject("mesh.flange_elements",
@@ -94,8 +172,7 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
   validate(spec);
   const ISection& sec = spec.section;
   const double L = spec.length;
-  const int nf = spec.flange_elements, nw = spec.web_elements;
-  const double he = spec.aspect * sec.b / nf;
+  const double he = spec.aspect * sec.b / spec.flange_elements;
   const double tol = 1e-6 * L;  // special x's closer than this share a station
 
   HingeZoneModel out;
@@ -133,62 +210,51 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
     for (double p : hard) clear = clear && std::abs(p - x) >= he;
     if (clear) with_hinge.push_back(x);
   }
-  Stations st{grade_stations(unique_points(with_hinge, L, tol), he, hinge_lo, hinge_hi), tol};
+  // Far-region elements: at most far_element_length h_e and at most b/2 (= nf / (2 aspect) h_e), so
+  // that coarse section meshes keep a flange's buckle length b resolved along x.
+  const double far_size = std::max(1.0, std::min(spec.far_element_length, 0.5 * sec.b / he));
+  Stations st{grade_stations(unique_points(with_hinge, L, tol), he, hinge_lo, hinge_hi, far_size, spec.far_growth), tol};
   out.stations = st.x;
 
   // Nodes: the cross-section at every station, then stiffener interiors, then reference nodes.
   ShellModel& m = out.model;
   m.region_names = {"top_flange", "bottom_flange", "web", "stiffener"};
-  const SectionGrid g{nf, nw};
+  out.axial_force = spec.axial_load_ratio * out.plate.A * spec.fy;
+  out.grid = section_grid(spec, setup.top_flange_in_compression(), out.axial_force);
+  const SectionGrid& g = out.grid;
+  const int nb = g.nb(), nt = g.nt(), nw = g.nw();
   const double zf = 0.5 * (sec.h - sec.tf);
-  // Measured from the web (y = 0) and the mid-depth, so the centre lines are exactly y = 0, z = 0.
-  auto y_of = [&](int k) { return (k - nf / 2) * (sec.b / nf); };
-  auto z_of = [&](int mm) { return (mm - 0.5 * nw) * (2.0 * zf / nw); };
   const int n_st = static_cast<int>(st.x.size());
   m.nodes.reserve(static_cast<std::size_t>(n_st) * g.per());
   for (int i = 0; i < n_st; ++i) {
-    for (int k = 0; k <= nf; ++k) m.nodes.emplace_back(st.x[i], y_of(k), -zf);
-    for (int k = 0; k <= nf; ++k) m.nodes.emplace_back(st.x[i], y_of(k), zf);
-    for (int mm = 1; mm < nw; ++mm) m.nodes.emplace_back(st.x[i], 0.0, z_of(mm));
+    for (double y : g.y_bottom) m.nodes.emplace_back(st.x[i], y, -zf);
+    for (double y : g.y_top) m.nodes.emplace_back(st.x[i], y, zf);
+    for (int mm = 1; mm < nw; ++mm) m.nodes.emplace_back(st.x[i], 0.0, g.z_web[mm]);
   }
 
   // Elements between stations: flanges CCW about +z, web CCW about +y.
   for (int i = 0; i + 1 < n_st; ++i) {
-    for (int k = 0; k < nf; ++k) {
-      m.elements.push_back({{g.top(i, k), g.top(i + 1, k), g.top(i + 1, k + 1), g.top(i, k + 1)}, sec.tf, kTopFlange});
-      m.elements.push_back(
-          {{g.bottom(i, k), g.bottom(i + 1, k), g.bottom(i + 1, k + 1), g.bottom(i, k + 1)}, sec.tf, kBottomFlange});
+    for (int k = 0; k < std::max(nb, nt); ++k) {
+      if (k < nt)
+        m.elements.push_back({{g.top(i, k), g.top(i + 1, k), g.top(i + 1, k + 1), g.top(i, k + 1)}, sec.tf, kTopFlange});
+      if (k < nb)
+        m.elements.push_back(
+            {{g.bottom(i, k), g.bottom(i + 1, k), g.bottom(i + 1, k + 1), g.bottom(i, k + 1)}, sec.tf, kBottomFlange});
     }
     for (int mm = 0; mm < nw; ++mm)
       m.elements.push_back({{g.web(i, mm), g.web(i, mm + 1), g.web(i + 1, mm + 1), g.web(i + 1, mm)}, sec.tw, kWeb});
   }
 
-  // Stiffeners: a (nf + 1) x (nw + 1) grid in the y-z plane, CCW about +x; its bottom and top
-  // rows are the flange nodes, its k = nf/2 column the web nodes.
+  // Stiffeners: a (nf + 1) x (nw + 1) grid in the y-z plane on the finer flange's y lines and the
+  // web's z lines, CCW about +x; its flange rows are the flange nodes, its k = nf/2 column the web
+  // nodes. With a coarser tension flange (its lines a subset, section_grading.hpp) the row next to
+  // it is a transition: a quad per cell of one fine width, six quads per pair of cells of two.
   const double ts = spec.stiffener_thickness.value_or(sec.tf);
-  for (double xs : stiff) {
-    const int i = st.at(xs);
-    out.stiffener_x.push_back(st.x[i]);
-    std::vector<int> grid((nf + 1) * (nw + 1));
-    auto id = [&](int k, int mm) -> int& { return grid[mm * (nf + 1) + k]; };
-    for (int mm = 0; mm <= nw; ++mm)
-      for (int k = 0; k <= nf; ++k) {
-        if (mm == 0) id(k, mm) = g.bottom(i, k);
-        else if (mm == nw) id(k, mm) = g.top(i, k);
-        else if (k == nf / 2) id(k, mm) = g.web(i, mm);
-        else {
-          id(k, mm) = m.node_count();
-          m.nodes.emplace_back(st.x[i], y_of(k), z_of(mm));
-        }
-      }
-    for (int mm = 0; mm < nw; ++mm)
-      for (int k = 0; k < nf; ++k)
-        m.elements.push_back({{id(k, mm), id(k + 1, mm), id(k + 1, mm + 1), id(k, mm + 1)}, ts, kStiffener});
-  }
+  for (double xs : stiff) add_stiffener(m, g, st.x[st.at(xs)], st.at(xs), zf, ts, kStiffener);
+  for (double xs : stiff) out.stiffener_x.push_back(st.x[st.at(xs)]);
 
   // Supports, ties, loads and the hinge-rotation measure of the setup.
-  const int last = n_st - 1, c = nf / 2;
-  out.axial_force = spec.axial_load_ratio * out.plate.A * spec.fy;
+  const int last = n_st - 1;
   setup.apply(HingeZoneMesh{spec, g, st, out});
 
   // Lateral restraints on the flange centre-line nodes; none at a rigidly tied end section.
@@ -196,8 +262,8 @@ HingeZoneModel build_hinge_zone(const HingeZoneSpec& spec) {
     const LateralBrace& r = spec.lateral_restraints[k];
     const int i = st.at(r.x);
     NodeGroup group;
-    if (r.flange != RestrainedFlange::bottom) group.nodes.push_back(g.top(i, c));
-    if (r.flange != RestrainedFlange::top) group.nodes.push_back(g.bottom(i, c));
+    if (r.flange != RestrainedFlange::bottom) group.nodes.push_back(g.top_centre(i));
+    if (r.flange != RestrainedFlange::top) group.nodes.push_back(g.bottom_centre(i));
     std::sort(group.nodes.begin(), group.nodes.end());
     for (int n : group.nodes) group.cells.push_back({n});
     const std::string name = "restraint_" + std::to_string(k);

@@ -22,11 +22,11 @@ NodeGroup point_group(int node) { return NodeGroup{0, {node}, {{node}}}; }
 NodeGroup section_group(const SectionGrid& g, int i) {
   NodeGroup group;
   group.dimension = 1;
-  for (int k = 0; k < g.nf; ++k) {
-    group.cells.push_back({g.bottom(i, k), g.bottom(i, k + 1)});
-    group.cells.push_back({g.top(i, k), g.top(i, k + 1)});
+  for (int k = 0; k < std::max(g.nb(), g.nt()); ++k) {  // interleaved, as before the counts could differ
+    if (k < g.nb()) group.cells.push_back({g.bottom(i, k), g.bottom(i, k + 1)});
+    if (k < g.nt()) group.cells.push_back({g.top(i, k), g.top(i, k + 1)});
   }
-  for (int m = 0; m < g.nw; ++m) group.cells.push_back({g.web(i, m), g.web(i, m + 1)});
+  for (int m = 0; m < g.nw(); ++m) group.cells.push_back({g.web(i, m), g.web(i, m + 1)});
   for (int n = g.bottom(i, 0); n < g.bottom(i, 0) + g.per(); ++n) group.nodes.push_back(n);
   return group;
 }

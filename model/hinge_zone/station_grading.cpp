@@ -7,22 +7,26 @@ namespace rotcap {
 
 namespace {
 
-constexpr double kGrowth = 0.2;      // slope of the target size: element ratio 1 + kGrowth
-constexpr double kMaxRatio = 1.25;   // accepted ratio of neighbouring element lengths
-constexpr double kMaxSize = 3.0;     // largest element, in hinge element lengths
+/// The grading: target size h_e in the hinge region, growing with slope `growth` (element ratio
+/// 1 + growth) up to max_size h_e; neighbours accepted up to max_ratio() (1.25 for slope 0.2).
+struct Grading {
+  double he, max_size, growth;
+  double max_ratio() const { return 1.05 + growth; }
+};
 
 struct SizeField {
   std::vector<double> x, s;
   std::vector<std::size_t> begin;  // first sample of each span; begin.back() = x.size()
 };
 
-// Lipschitz envelope: the largest field <= s with |ds/dx| <= kGrowth (two sweeps).
-void limit_slope(SizeField& f) {
-  for (std::size_t i = 1; i < f.s.size(); ++i) f.s[i] = std::min(f.s[i], f.s[i - 1] + kGrowth * (f.x[i] - f.x[i - 1]));
-  for (std::size_t i = f.s.size() - 1; i-- > 0;) f.s[i] = std::min(f.s[i], f.s[i + 1] + kGrowth * (f.x[i + 1] - f.x[i]));
+// Lipschitz envelope: the largest field <= s with |ds/dx| <= growth (two sweeps).
+void limit_slope(SizeField& f, double growth) {
+  for (std::size_t i = 1; i < f.s.size(); ++i) f.s[i] = std::min(f.s[i], f.s[i - 1] + growth * (f.x[i] - f.x[i - 1]));
+  for (std::size_t i = f.s.size() - 1; i-- > 0;) f.s[i] = std::min(f.s[i], f.s[i + 1] + growth * (f.x[i + 1] - f.x[i]));
 }
 
-SizeField initial_field(const std::vector<double>& hard, double he, double hinge_lo, double hinge_hi) {
+SizeField initial_field(const std::vector<double>& hard, const Grading& gr, double hinge_lo, double hinge_hi) {
+  const double he = gr.he;
   SizeField f;
   for (std::size_t j = 0; j + 1 < hard.size(); ++j) {
     const double a = hard[j], len = hard[j + 1] - a;
@@ -32,11 +36,11 @@ SizeField initial_field(const std::vector<double>& hard, double he, double hinge
       const double x = t == m ? hard[j + 1] : a + len * t / m;
       const double d = x < hinge_lo ? hinge_lo - x : (x > hinge_hi ? x - hinge_hi : 0.0);
       f.x.push_back(x);
-      f.s.push_back(std::min({kMaxSize * he, he + kGrowth * d, len}));  // no element beyond its span
+      f.s.push_back(std::min({gr.max_size * he, he + gr.growth * d, len}));  // no element beyond its span
     }
   }
   f.begin.push_back(f.x.size());
-  limit_slope(f);
+  limit_slope(f, gr.growth);
   return f;
 }
 
@@ -68,23 +72,25 @@ void lower(SizeField& f, double x0, double x1, double value) {
 
 }  // namespace
 
-std::vector<double> grade_stations(const std::vector<double>& hard, double he, double hinge_lo, double hinge_hi) {
-  SizeField f = initial_field(hard, he, hinge_lo, hinge_hi);
+std::vector<double> grade_stations(const std::vector<double>& hard, double he, double hinge_lo, double hinge_hi,
+                                   double max_size, double growth) {
+  const Grading gr{he, max_size, growth};
+  SizeField f = initial_field(hard, gr, hinge_lo, hinge_hi);
   for (int iteration = 0; iteration < 100; ++iteration) {
     const std::vector<double> st = place_stations(f);
     bool graded = true;
     for (std::size_t e = 0; e + 2 < st.size(); ++e) {
       const double a = st[e + 1] - st[e], b = st[e + 2] - st[e + 1];
-      if (a > kMaxRatio * b) {
-        lower(f, st[e], st[e + 1], (1.0 + kGrowth) * b);
+      if (a > gr.max_ratio() * b) {
+        lower(f, st[e], st[e + 1], (1.0 + growth) * b);
         graded = false;
-      } else if (b > kMaxRatio * a) {
-        lower(f, st[e + 1], st[e + 2], (1.0 + kGrowth) * a);
+      } else if (b > gr.max_ratio() * a) {
+        lower(f, st[e + 1], st[e + 2], (1.0 + growth) * a);
         graded = false;
       }
     }
     if (graded) return st;
-    limit_slope(f);
+    limit_slope(f, growth);
   }
   return place_stations(f);  // best effort; not reached for the meshes tested
 }

@@ -28,8 +28,8 @@ void CantileverSetup::apply(const HingeZoneMesh& mesh) const {
     m.supports.push_back(support("support", {Dof::ux, Dof::ry, Dof::rz}));
     NodeGroup web;
     web.dimension = 1;
-    for (int mm = 0; mm <= g.nw; ++mm) web.nodes.push_back(g.web(0, mm));
-    for (int mm = 0; mm < g.nw; ++mm) web.cells.push_back({g.web(0, mm), g.web(0, mm + 1)});
+    for (int mm = 0; mm <= g.nw(); ++mm) web.nodes.push_back(g.web(0, mm));
+    for (int mm = 0; mm < g.nw(); ++mm) web.cells.push_back({g.web(0, mm), g.web(0, mm + 1)});
     std::sort(web.nodes.begin(), web.nodes.end());
     m.groups["support_web"] = web;
     m.supports.push_back(support("support_web", {Dof::uy, Dof::uz}));

@@ -25,18 +25,17 @@ void FourPointSetup::apply(const HingeZoneMesh& mesh) const {
   HingeZoneModel& out = mesh.out;
   ShellModel& m = out.model;
   const double L = mesh.spec.length, Mp = out.plastic_moment, a = shear_span(mesh.spec);
-  const int c = mesh.centre();
   add_end_bearings(mesh);
   const int ia = mesh.stations.at(a), ib = mesh.stations.at(L - a);
-  m.groups["load_point_a"] = point_group(g.top(ia, c));
-  m.groups["load_point_b"] = point_group(g.top(ib, c));
-  m.groups["deflection_a"] = point_group(g.bottom(ia, c));
-  m.groups["deflection_b"] = point_group(g.bottom(ib, c));
+  m.groups["load_point_a"] = point_group(g.top_centre(ia));
+  m.groups["load_point_b"] = point_group(g.top_centre(ib));
+  m.groups["deflection_a"] = point_group(g.bottom_centre(ia));
+  m.groups["deflection_b"] = point_group(g.bottom_centre(ib));
   out.reference_load = Mp / a;
   out.lever_arm = out.shear_span = a;
   for (const char* name : {"load_point_a", "load_point_b"})
     m.loads.push_back({name, Eigen::Vector3d(0.0, 0.0, -out.reference_load), Eigen::Vector3d::Zero()});
-  out.rotation = {{g.bottom(ia, c), g.bottom(ib, c)}, Dof::uz, {-1.0 / a, -1.0 / a}};
+  out.rotation = {{g.bottom_centre(ia), g.bottom_centre(ib)}, Dof::uz, {-1.0 / a, -1.0 / a}};
 }
 
 double FourPointSetup::beam_theory_rotation_at_mp(const HingeZoneModel& m, double EI) const {

@@ -53,7 +53,6 @@ struct HingeZoneMesh {
   HingeZoneModel& out;
 
   int last() const { return static_cast<int>(stations.x.size()) - 1; }  ///< the x = L station
-  int centre() const { return grid.nf / 2; }  ///< k of the flange centre line (y = 0)
   /// A new reference node at (x, 0, 0) in the point group `name`; returns its index.
   int add_reference(const std::string& name, double x) const;
 };
@@ -99,7 +98,8 @@ class LoadingSetup {
   // ---- Half-sine imperfection ----
   /// The sections x_h [mm] where the local wave trains start.
   virtual std::vector<double> hinge_sections(const HingeZoneModel& m) const = 0;
-  /// Whether the top flange is the compression flange (sagging); false for hogging.
+  /// Whether the top flange is the compression flange (sagging); false for hogging. The mesher
+  /// coarsens the other side (HingeZoneSpec::tension_coarsening).
   virtual bool top_flange_in_compression() const { return true; }
 };
 

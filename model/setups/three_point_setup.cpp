@@ -22,16 +22,15 @@ void ThreePointSetup::apply(const HingeZoneMesh& mesh) const {
   HingeZoneModel& out = mesh.out;
   ShellModel& m = out.model;
   const double L = mesh.spec.length, Mp = out.plastic_moment;
-  const int c = mesh.centre();
   add_end_bearings(mesh);
   const int i = mesh.stations.at(0.5 * L);
-  m.groups["load_point"] = point_group(g.top(i, c));
-  m.groups["midspan_bottom"] = point_group(g.bottom(i, c));
+  m.groups["load_point"] = point_group(g.top_centre(i));
+  m.groups["midspan_bottom"] = point_group(g.bottom_centre(i));
   out.reference_load = 4.0 * Mp / L;
   out.lever_arm = 0.25 * L;
   out.shear_span = 0.5 * L;
   m.loads.push_back({"load_point", Eigen::Vector3d(0.0, 0.0, -out.reference_load), Eigen::Vector3d::Zero()});
-  out.rotation = {{g.bottom(i, c)}, Dof::uz, {-4.0 / L}};
+  out.rotation = {{g.bottom_centre(i)}, Dof::uz, {-4.0 / L}};
 }
 
 double ThreePointSetup::beam_theory_rotation_at_mp(const HingeZoneModel& m, double EI) const {

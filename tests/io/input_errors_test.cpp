@@ -153,6 +153,33 @@ TEST(InputErrors, EvenLayersNamesTheRule) {
   expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 17")); }, {"mesh.layers: found 17"});
 }
 
+TEST(InputErrors, TensionCoarseningOutOfRangeNamesTheKeyAndRange) {
+  expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 5\ntension_coarsening = 0.5")); },
+                     {"beam.toml:14: mesh.tension_coarsening: found 0.5; expected a number from 1 (the uniform mesh) to 3"});
+  expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 5\ntension_coarsening = 4")); },
+                     {"mesh.tension_coarsening: found 4; expected a number from 1"});
+  expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 5\ntension_coarsening = \"coarse\"")); },
+                     {"beam.toml:14: mesh.tension_coarsening", "\"coarse\""});
+}
+
+TEST(InputErrors, FarRegionGradingOutOfRangeNamesTheKeyAndRange) {
+  expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 5\nfar_element_length = 0.5")); },
+                     {"beam.toml:14: mesh.far_element_length: found 0.5; expected a number from 1 to 10"});
+  expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 5\nfar_element_length = 11")); },
+                     {"mesh.far_element_length: found 11"});
+  expect_input_error([] { generated(replaced(kGenerated, "layers = 5", "layers = 5\nfar_growth = 0")); },
+                     {"beam.toml:14: mesh.far_growth: found 0; expected a number from 0.05 to 0.5"});
+}
+
+TEST(InputErrors, MeshGradingKeysAreGeneratedOnly) {
+  expect_input_error([] { general(general_text() + "[mesh]\ntension_coarsening = 2.0\n"); },
+                     {"mesh.tension_coarsening", "only mesh.layers in a general model"});
+  expect_input_error([] { general(general_text() + "[mesh]\nfar_element_length = 6.0\n"); },
+                     {"mesh.far_element_length", "only mesh.layers in a general model"});
+  expect_input_error([] { general(general_text() + "[mesh]\nfar_growth = 0.3\n"); },
+                     {"mesh.far_growth", "only mesh.layers in a general model"});
+}
+
 TEST(InputErrors, TensileStrengthBelowYieldNamesBothValues) {
   expect_input_error([] { generated(replaced(kGenerated, "fu = 490", "fu = 300")); },
                      {"beam.toml:8: steel.fu: found 300; expected fu >= fy (355)"});

@@ -58,6 +58,9 @@ TEST(HingeBadInput, EvenLayerCountIsRejected) {
 TEST(HingeBadInput, OddFlangeElementCountIsRejected) {
   expect_rejected({"odd_flange_elements", R"(odd_flange_elements\.toml:[0-9]+: mesh\.flange_elements: found 5; expected an even number >= 4)"});
 }
+TEST(HingeBadInput, TensionCoarseningBelowOneIsRejected) {
+  expect_rejected({"tension_coarsening", R"(tension_coarsening\.toml:[0-9]+: mesh\.tension_coarsening: found 0\.8; expected a number from 1 \(the uniform mesh\) to 3)"});
+}
 TEST(HingeBadInput, StopBelowOutOfRangeIsRejected) {
   expect_rejected({"stop_below_above_one", R"(stop_below_above_one\.toml:[0-9]+: analysis\.stop_below: found 1\.5; expected 0 < stop_below < 1)"});
 }
