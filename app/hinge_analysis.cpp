@@ -191,6 +191,7 @@ int run_hinge_study(const CaseInput& input, const HingeCase& hinge, const fs::pa
   if (setup.control == Control::load) setup.options.max_load_factor = input.analysis.max_load_factor.value_or(1.0);
   setup.arc_length_form = input.analysis.arc_length_form;
   setup.controlled = zone.rotation;
+  setup.options.curve.rising_limit = 1.0;  // load factor 1: M = Mp
   setup.description = "tracing the moment-rotation curve";
   setup.checkpoint = checkpoint.file.empty() ? nullptr : &checkpoint;
   setup.checkpoint_every = std::max(1, input.output.checkpoint_every);

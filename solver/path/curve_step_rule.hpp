@@ -16,6 +16,8 @@
 // the peak. A step whose p exceeds reject_ratio x p_target is redone smaller (too_large()).
 #include <Eigen/Core>
 
+#include <limits>
+
 namespace rotcap {
 
 struct CurveStepOptions {
@@ -24,6 +26,11 @@ struct CurveStepOptions {
   double growth = 2.0;          ///< > 1: largest size ratio between consecutive steps
   double shrink = 0.25;         ///< in (0, 1): smallest size ratio between consecutive steps
   double reject_ratio = 2.0;    ///< > 1: a step with p > reject_ratio x p_target is redone
+  /// Load factor the rising curve approaches (generated hinge models: 1, M = Mp), or NaN (none).
+  /// While lambda < 0.9 x rising_limit, a step's predicted load-factor increment is held to half
+  /// the remaining rise: the size doubles in the elastic stretch and would otherwise jump far past
+  /// the onset of yield, where arc-length then finds no real root and cuts back.
+  double rising_limit = std::numeric_limits<double>::quiet_NaN();
 };
 
 /// One step of the normalised curve (x = q / q_el, y = lambda).

@@ -93,11 +93,18 @@ PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constrain
   // --- predict: tangent factorised at the committed state (by the caller: the last corrector
   // evaluation of the previous step, or a fresh evaluation at the start and after a revert)
   const Eigen::VectorXd& f_ref = problem_.reference_load();
-  const double s = std::abs(size);
   if (!du_f_current_) problem_.solve(f_ref, du_f_);
   du_f_current_ = true;
   double dlambda = constraint.predict(du_f_, size, Du_prev_);
   if (!std::isfinite(dlambda)) return Attempt::Diverged;
+  const double limit = options_.curve.rising_limit;
+  if (curve_rule_ && std::isfinite(limit) && lambda_ < 0.9 * limit && dlambda > 0.5 * (limit - lambda_)) {
+    size *= 0.5 * (limit - lambda_) / dlambda;  // the predictor is linear in the size
+    record.step_size = size;
+    dlambda = constraint.predict(du_f_, size, Du_prev_);
+    if (!std::isfinite(dlambda)) return Attempt::Diverged;
+  }
+  const double s = std::abs(size);
   Du_ = dlambda * du_f_;
   double Dlambda = dlambda;
   problem_.update(Du_);
@@ -273,7 +280,7 @@ PathSummary PathFollower::follow(const Observer& observer, PathSummary summary) 
     lambda_ += record.load_factor_increment;
     u_total_ += Du_;
     // --- adapt the step size (before the observer, so that state() is whole)
-    size = curve_rule_ ? curve_next_size(record, size) : next_size(record.iterations, size);
+    size = curve_rule_ ? curve_next_size(record, std::abs(record.step_size)) : next_size(record.iterations, size);
     Du_prev_ = Du_;
     record.load_factor = lambda_;
     record.cutbacks = cutbacks;

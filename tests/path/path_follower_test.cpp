@@ -6,6 +6,8 @@
 
 #include <cmath>
 #include <iostream>
+#include <limits>
+#include <vector>
 
 namespace rotcap {
 namespace {
@@ -177,6 +179,49 @@ TEST(PathFollower, ConvergedIteratesAreNeverFactorisedAndLikelyOnesSkipTheTangen
   std::cout << s.steps << " steps, " << s.iterations << " iterations, " << p.factorisations << " factorisations, "
             << s.residual_only_evaluations << " residual-only evaluations (" << s.repeated_evaluations
             << " repeated)\n";
+}
+
+// lambda = u up to 0.7, then 0.7 + 0.3 (1 - exp(-(u - 0.7) / 0.3)): linear, then softening towards
+// lambda = 1 with a continuous slope, so the arc-length corrector can only lower the predicted
+// load-factor increment past the knee (the tangent predictor overshoots a concave curve).
+std::vector<ConvergedStep> rising_path(double rising_limit, int& cutbacks) {
+  auto f = [](double u) { return u <= 0.7 ? u : 0.7 + 0.3 * (1.0 - std::exp(-(u - 0.7) / 0.3)); };
+  auto df = [](double u) { return u <= 0.7 ? 1.0 : std::exp(-(u - 0.7) / 0.3); };
+  DenseProblem p([=](const V& u) { V r(1); r[0] = f(u[0]); return r; },
+                 [=](const V& u) { M k(1, 1); k(0, 0) = df(u[0]); return k; }, V::Ones(1));
+  ArcLength arc(V::Ones(1), ArcLength::Form::Cylindrical);
+  PathOptions o;
+  o.first_step = 0.02;
+  o.max_step_ratio = 1000.0;
+  o.step_rule = StepRule::curve;
+  o.curve.rising_limit = rising_limit;
+  PathFollower follower(p, arc, o);
+  follower.set_curve_monitor(V::Ones(1));
+  std::vector<ConvergedStep> steps;
+  const PathSummary s = follower.run([&](const ConvergedStep& step) {
+    steps.push_back(step);
+    return step.load_factor < 0.95;
+  });
+  EXPECT_EQ(s.status, PathStatus::Completed) << s.message;
+  cutbacks = s.cutbacks;
+  return steps;
+}
+
+TEST(PathFollower, RisingLimitHoldsStepsBelowPointNineToHalfTheRemainingRiseWithoutCutBacks) {
+  // Without the limit the curve rule doubles the size while the curve is linear and overshoots the
+  // knee: the step goes too far along the plastic part and is redone (a cut-back). With
+  // rising_limit = 1 a step from lambda < 0.9 predicts at most half of 1 - lambda, and the
+  // softening corrector keeps the converged step below that.
+  int cutbacks_without = 0, cutbacks_with = 0;
+  rising_path(std::numeric_limits<double>::quiet_NaN(), cutbacks_without);
+  EXPECT_GT(cutbacks_without, 0) << "the test case must need the limit";
+  double before = 0.0;
+  for (const ConvergedStep& step : rising_path(1.0, cutbacks_with)) {
+    if (before < 0.9) EXPECT_LE(step.load_factor, 0.5 * (1.0 + before) + 1e-12) << "step " << step.step;
+    before = step.load_factor;
+  }
+  EXPECT_EQ(cutbacks_with, 0);
+  std::cout << "cut-backs without the rising limit " << cutbacks_without << ", with it " << cutbacks_with << "\n";
 }
 
 TEST(PathFollower, TooLargeFirstStepIsCutBackAndSucceeds) {
