@@ -118,9 +118,7 @@ SupernodalLdlt::SupernodalLdlt(std::span<const int> column_starts, std::span<con
   for (int k = 0; k < nsuper_; ++k) postordered = postordered && (parent[k] < 0 || parent[k] > k);
   owner_.assign(static_cast<std::size_t>(nsuper_), -1);
   if (postordered) {
-    const SubtreeSplit split = split_subtrees(parent, work);
-    owner_ = split.owner;
-    two_thread_ratio_ = split.two_thread_ratio();
+    owner_ = split_subtrees(parent, work).owner;
   }
   buffer_offset_.assign(static_cast<std::size_t>(nsuper_), -1);
   std::ptrdiff_t buffer_size = 0;

@@ -68,8 +68,6 @@ class SupernodalLdlt {
   static constexpr int kPanel = 64;  ///< panel width of the dense diagonal LDL^T
   /// Threads of factorize(): at most 2 are used; 0 (default) takes the OpenMP default.
   void set_threads(int threads) { threads_ = threads; }
-  /// Estimated two-thread time over one-thread time of factorize() (SubtreeSplit::two_thread_ratio).
-  double two_thread_ratio() const { return two_thread_ratio_; }
 
  private:
   // Supernode k: columns first .. first + cols - 1, a dense column-major block of rows x cols at data
@@ -108,7 +106,6 @@ class SupernodalLdlt {
   std::vector<int> owner_;          // supernode -> 0, 1 or -1 (top)
   std::vector<std::ptrdiff_t> buffer_offset_;  // top supernode -> its block in top_buffer_
   std::vector<double> top_buffer_;  // group 1's updates of the top blocks
-  double two_thread_ratio_ = 1.0;
   int threads_ = 0;
   int team_ = 1;                    // threads of the factorize() under way
   Eigen::VectorXd work_y_, work_t_; // solve workspaces

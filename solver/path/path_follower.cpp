@@ -90,8 +90,8 @@ double PathFollower::landing_size(double size, bool& lands) const {
 
 PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constraint, double size,
                                                   ConvergedStep& record) {
-  // --- predict: tangent factorised at the committed state (by the caller: the last corrector
-  // evaluation of the previous step, or a fresh evaluation at the start and after a revert)
+  // --- predict: the last factorised tangent (the previous step's iterate before its converged one,
+  // or a fresh factorisation at the committed state at the start and after a revert)
   const Eigen::VectorXd& f_ref = problem_.reference_load();
   if (!du_f_current_) problem_.solve(f_ref, du_f_);
   du_f_current_ = true;
@@ -120,9 +120,12 @@ PathFollower::Attempt PathFollower::attempt_step(const StepConstraint& constrain
   for (int k = 0; k <= options_.max_iterations; ++k) {
     const bool residual_only = k > 0 && converging(record.residual_norms, du_norm, wnorm(Du_));
     EvaluationStatus status = EvaluationStatus::Ok;
-    if (k == 0) du_f_current_ = false;
-    if (k == 0) status = problem_.evaluate(f_int_, true);
-    else status = residual_only ? problem_.evaluate(f_int_, false) : problem_.evaluate_deferred(f_int_);
+    if (k == 0) {
+      du_f_current_ = false;
+      status = problem_.evaluate(f_int_, true);
+    } else {
+      status = residual_only ? problem_.evaluate(f_int_, false) : problem_.evaluate_deferred(f_int_);
+    }
     if (status != EvaluationStatus::Ok) return Attempt::Diverged;
     if (residual_only) ++record.residual_only_evaluations;
     r_ = f_int_ - problem_.fixed_load() - (lambda_ + Dlambda) * f_ref;
