@@ -8,6 +8,7 @@
 #include "app/logging.hpp"
 #include "core/option_error.hpp"
 #include "io/input_error.hpp"
+#include "solver/blas_threads.hpp"
 
 #include <CLI/CLI.hpp>
 #include <unistd.h>
@@ -49,6 +50,9 @@ int main(int argc, char** argv) {
   // process id; if the exec fails it goes on as it is).
   if (std::getenv("OMP_WAIT_POLICY") == nullptr && ::setenv("OMP_WAIT_POLICY", "passive", 1) == 0)
     ::execv("/proc/self/exe", argv);
+  // BLAS on one thread whatever OPENBLAS_NUM_THREADS says: our own threads share the cores, and a
+  // threaded BLAS inside them tripled the demo's wall time (solver/blas_threads.hpp).
+  rotcap::solver::use_one_blas_thread();
   // 1. Parse the command line.
   CLI::App cli{"rotcap: moment-rotation curves and rotation capacity of steel I-beam plastic hinges by "
                "nonlinear shell analysis (units: mm, N, MPa, rad)"};

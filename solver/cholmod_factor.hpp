@@ -14,8 +14,8 @@
 //                    SupernodalLdlt (supernodal_ldlt.hpp) on CHOLMOD's supernodal analysis, with
 //                    dense BLAS-3 kernels: several times faster on shell tangents.
 //
-// Values are the upper triangle in the pattern's order (stype = 1). The number of BLAS threads is
-// the BLAS library's business (set OPENBLAS_NUM_THREADS=1; see docs/spec/toolchain.md).
+// Values are the upper triangle in the pattern's order (stype = 1). Expects one BLAS thread
+// (use_one_blas_thread(), blas_threads.hpp; the rotcap program sets it at start).
 // CHOLMOD's own OpenMP regions are made inactive during every call (cholmod_factor.cpp says why).
 // Not thread-safe: one factor object per thread; solve() uses workspace held by the object; call it
 // outside OpenMP parallel regions.
